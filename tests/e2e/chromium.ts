@@ -1,0 +1,31 @@
+import type { LaunchOptions } from "@playwright/test";
+
+/**
+ * Debian's Chromium with WebGL through SwiftShader (software), so the 3D canvas renders on a
+ * machine without a GPU. We never download a browser: CHROMIUM_PATH overrides the system path.
+ */
+export const chromiumLaunch: LaunchOptions = {
+  executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+  headless: true,
+  args: [
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+    "--no-first-run",
+    "--use-angle=swiftshader",
+    "--enable-unsafe-swiftshader",
+  ],
+};
+
+/** The production build served by vite preview: what users get, and steadier than the dev server. */
+export const PORT = 4173;
+export const webServer = {
+  command: `npx vite build --logLevel warn && npx vite preview --port ${PORT} --strictPort --host 127.0.0.1`,
+  url: `http://127.0.0.1:${PORT}/`,
+  reuseExistingServer: !process.env.CI,
+  timeout: 180_000,
+  stdout: "ignore" as const,
+  stderr: "pipe" as const,
+};
