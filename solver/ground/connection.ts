@@ -1,0 +1,110 @@
+/**
+ * How a wire end at z = 0 joins a real (lossy) ground, reduced to a lumped series resistance between the
+ * wire's end and an ideal connection point (where the perfect-image half triangle would close the current).
+ *
+ * - "ideal": 0 Ω — as if the soil were a perfect conductor at that point (a modelling idealisation).
+ * - { ohms }: the stated resistance.
+ * - { rod: { length, radius } }: Dwight's resistance of a driven rod, R = ρ/(2πL)·(ln(4L/a) − 1)
+ *   (H. B. Dwight, "Calculation of resistances to ground", AIEE Transactions 55, 1936). A d.c./low-frequency
+ *   formula: at HF a rod of a few metres is a sizeable fraction of the wavelength in the soil and its
+ *   impedance is complex; we label it a low-frequency estimate wherever it is shown.
+ * - "contact": a bare wire end standing on the soil. Estimated as the spreading resistance of a
+ *   hemispherical electrode of the wire's radius at the surface of a half-space, R = ρ/(2πa) (the
+ *   textbook hemisphere result; e.g. Tagg, Earth Resistances, 1964). Also a low-frequency estimate, and a
+ *   rough one: the true contact depends on how the end sits in the soil. It is large (tens of kΩ for a
+ *   millimetre wire in average soil), which is the physics that matters: a mast merely standing on the soil
+ *   behaves almost like an insulated one.
+ *
+ * ρ = 1/σ. Displacement current in the soil is ignored in all three estimates (σ ≫ ωε at HF holds for wet
+ * and average ground, less so for very dry ground; a further reason these are estimates).
+ */
+import { ModelError } from "../model/errors";
+import type { GroundConnection } from "../model/types";
+
+export type ConnectionModel = "ideal" | "lumped" | "dwight-rod" | "contact-hemisphere";
+
+export interface ConnectionResistance {
+  /** Series resistance between the wire end and the ideal connection point, ohms. */
+  ohms: number;
+  model: ConnectionModel;
+  /** Short human-readable label, including the caveat, for reports and the UI. */
+  label: string;
+}
+
+/** Dwight's driven-rod resistance, ohms: R = ρ/(2πL)·(ln(4L/a) − 1), ρ in Ω·m, L and a in metres. */
+export function dwightRodResistance(resistivity: number, length: number, radius: number): number {
+  return (resistivity / (2 * Math.PI * length)) * (Math.log((4 * length) / radius) - 1);
+}
+
+/** Spreading resistance of a hemisphere of radius a at the surface of a half-space of resistivity ρ: ρ/(2πa). */
+export function hemisphereResistance(resistivity: number, radius: number): number {
+  return resistivity / (2 * Math.PI * radius);
+}
+
+/**
+ * The lumped resistance for one wire end. `wireRadius` is used by "contact"; `conductivity` is the
+ * ground's σ in S/m; `path` names the wire's groundConnection in the input, for messages.
+ */
+export function connectionResistance(
+  connection: GroundConnection,
+  conductivity: number,
+  wireRadius: number,
+  path: string,
+): ConnectionResistance {
+  if (!(conductivity > 0) || !Number.isFinite(conductivity)) {
+    throw new ModelError(
+      path,
+      `a ground connection needs a finite positive ground conductivity (got ${conductivity})`,
+    );
+  }
+  const rho = 1 / conductivity;
+  if (connection === "ideal") {
+    return { ohms: 0, model: "ideal", label: "ideal connection (soil treated as a perfect conductor here)" };
+  }
+  if (connection === "contact") {
+    if (!(wireRadius > 0) || !Number.isFinite(wireRadius)) {
+      throw new ModelError(path, `a bare contact needs a positive wire radius (got ${wireRadius})`);
+    }
+    const ohms = hemisphereResistance(rho, wireRadius);
+    return {
+      ohms,
+      model: "contact-hemisphere",
+      label: `bare contact, ≈${formatOhms(ohms)} (hemisphere spreading resistance, low-frequency estimate)`,
+    };
+  }
+  if ("ohms" in connection) {
+    const ohms = connection.ohms;
+    if (!Number.isFinite(ohms) || ohms < 0) {
+      throw new ModelError(`${path}.ohms`, `expected a finite resistance of at least 0 Ω (got ${ohms})`);
+    }
+    return { ohms, model: "lumped", label: `${formatOhms(ohms)} lumped connection resistance` };
+  }
+  if ("rod" in connection) {
+    const { length, radius } = connection.rod;
+    if (!Number.isFinite(length) || length <= 0) {
+      throw new ModelError(`${path}.rod.length`, `expected a positive rod length in metres (got ${length})`);
+    }
+    if (!Number.isFinite(radius) || radius <= 0) {
+      throw new ModelError(`${path}.rod.radius`, `expected a positive rod radius in metres (got ${radius})`);
+    }
+    if (length < 4 * radius) {
+      // ln(4L/a) − 1 < ln 16 − 1 makes the slender-rod formula meaningless well before it turns negative.
+      throw new ModelError(
+        `${path}.rod`,
+        `a rod must be much longer than its radius (length ${length} m, radius ${radius} m)`,
+      );
+    }
+    const ohms = dwightRodResistance(rho, length, radius);
+    return {
+      ohms,
+      model: "dwight-rod",
+      label: `${length} m rod, ≈${formatOhms(ohms)} (Dwight 1936, low-frequency estimate)`,
+    };
+  }
+  throw new ModelError(path, "unknown ground connection");
+}
+
+function formatOhms(ohms: number): string {
+  if (ohms >= 1e3) return `${(ohms / 1e3).toPrecision(3)} kΩ`;
+  return `${ohms.toPrecision(3)} Ω`;
+}

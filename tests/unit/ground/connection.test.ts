@@ -1,0 +1,64 @@
+import { describe, expect, it } from "vitest";
+import { connectionResistance, dwightRodResistance } from "../../../solver/ground/connection";
+import { ModelError } from "../../../solver/model/errors";
+
+describe("ground connection resistance", () => {
+  // Dwight, AIEE Trans. 1936: R = ρ/(2πL)(ln(4L/a) − 1). Worked by hand: ρ = 200 Ω·m, L = 2.4 m, a = 8 mm:
+  // 4L/a = 1200, ln 1200 = 7.090077, − 1 = 6.090077; 200/(2π·2.4) = 13.262912; product 80.772 Ω.
+  it("matches a hand-worked Dwight rod value", () => {
+    expect(dwightRodResistance(200, 2.4, 0.008)).toBeCloseTo(80.772, 2);
+    const r = connectionResistance({ rod: { length: 2.4, radius: 0.008 } }, 1 / 200, 0.001, "wires[0]");
+    expect(r.model).toBe("dwight-rod");
+    expect(r.ohms).toBeCloseTo(80.772, 2);
+    expect(r.label).toMatch(/low-frequency estimate/);
+  });
+
+  // The commonly quoted figure for a 10 ft, 5/8 in rod in 100 Ω·m soil is about 33 Ω (electrical
+  // practice, from memory); Dwight's formula gives 33.09 Ω for L = 3.048 m, a = 7.94 mm.
+  it("gives the familiar ~33 Ω for a 10 ft rod in 100 Ω·m soil", () => {
+    expect(dwightRodResistance(100, 3.048, 0.00794)).toBeCloseTo(33.09, 1);
+  });
+
+  // Hemisphere of radius a on a half-space: R = ρ/(2πa) (textbook electrode result). ρ = 200, a = 1 mm:
+  // 200/(2π·0.001) = 31 831 Ω by hand.
+  it("estimates a bare contact as a hemisphere of the wire radius", () => {
+    const r = connectionResistance("contact", 1 / 200, 0.001, "wires[0]");
+    expect(r.model).toBe("contact-hemisphere");
+    expect(r.ohms).toBeCloseTo(31831, 0);
+  });
+
+  it("orders ideal < rod < contact for the same soil", () => {
+    const s = 0.005;
+    const ideal = connectionResistance("ideal", s, 0.002, "w").ohms;
+    const rod = connectionResistance({ rod: { length: 2.4, radius: 0.008 } }, s, 0.002, "w").ohms;
+    const contact = connectionResistance("contact", s, 0.002, "w").ohms;
+    expect(ideal).toBe(0);
+    expect(rod).toBeGreaterThan(ideal);
+    expect(contact).toBeGreaterThan(rod);
+    expect(connectionResistance({ ohms: 25 }, s, 0.002, "w").ohms).toBe(25);
+  });
+
+  it("names the field for bad input", () => {
+    const path = (f: () => unknown) => {
+      try {
+        f();
+      } catch (e) {
+        expect(e).toBeInstanceOf(ModelError);
+        return (e as ModelError).path;
+      }
+      return "no error";
+    };
+    expect(
+      path(() =>
+        connectionResistance(
+          { rod: { length: -1, radius: 0.01 } },
+          0.005,
+          0.001,
+          "wires[2].groundConnection",
+        ),
+      ),
+    ).toBe("wires[2].groundConnection.rod.length");
+    expect(path(() => connectionResistance({ ohms: Number.NaN }, 0.005, 0.001, "w.gc"))).toBe("w.gc.ohms");
+    expect(path(() => connectionResistance("contact", 0.005, 0, "w.gc"))).toBe("w.gc");
+  });
+});
