@@ -1,0 +1,16 @@
+/** Free space: no ground, nothing reflected, no ground nodes. */
+import type { GroundKernel } from "./kernel";
+
+export function freeSpaceGround(): GroundKernel {
+  return {
+    method: "none",
+    connectsAtZ0: false,
+    symmetric: true,
+    hasPairTerms: false,
+    beginFrequency() {},
+    pairTerms() {},
+    nodeImpedance() {
+      return false;
+    },
+  };
+}
