@@ -1,0 +1,466 @@
+import type { Anchor, Droop, Plan, Point2, Support, WireRun } from "../../solver/plan/schema";
+import { allIds, findElement, mintId, supportCentre, supportHeight } from "./elements";
+import { anchorPoint, sketchRun } from "./geometry";
+
+/**
+ * Editing commands: pure functions from a plan to a new plan. They never mutate their input, so the
+ * store can keep the old plan as an undo snapshot and React can compare by reference. A command that
+ * does not apply returns the plan unchanged (same reference): the store then records nothing.
+ */
+
+const round = (v: number, step = 0.01) => Math.round(v / step) * step;
+
+export function snap(v: number, step: number | null): number {
+  return step ? round(v, step) : v;
+}
+
+function mapSupport(plan: Plan, id: string, f: (s: Support) => Support): Plan {
+  let changed = false;
+  const supports = plan.supports.map((s) => {
+    if (s.id !== id) return s;
+    const next = f(s);
+    if (next !== s) changed = true;
+    return next;
+  });
+  return changed ? { ...plan, supports } : plan;
+}
+
+function mapRun(plan: Plan, id: string, f: (r: WireRun) => WireRun): Plan {
+  let changed = false;
+  const wireRuns = plan.wireRuns.map((r) => {
+    if (r.id !== id) return r;
+    const next = f(r);
+    if (next !== r) changed = true;
+    return next;
+  });
+  return changed ? { ...plan, wireRuns } : plan;
+}
+
+function mapAnchors(plan: Plan, f: (a: Anchor) => Anchor): Plan {
+  let changed = false;
+  const wireRuns = plan.wireRuns.map((r) => {
+    let runChanged = false;
+    const anchors = r.anchors.map((a) => {
+      const next = f(a);
+      if (next !== a) runChanged = true;
+      return next;
+    });
+    if (!runChanged) return r;
+    changed = true;
+    return { ...r, anchors };
+  });
+  return changed ? { ...plan, wireRuns } : plan;
+}
+
+const shift = (p: Point2, dx: number, dy: number): Point2 => [p[0] + dx, p[1] + dy];
+
+/**
+ * Move a support so its centre sits at `to` on the ground. Areas and lines move as a whole, and so do
+ * the roof and fence anchor points on them, so wires stay attached.
+ */
+export function moveSupport(plan: Plan, id: string, to: Point2): Plan {
+  const s = plan.supports.find((x) => x.id === id);
+  if (!s) return plan;
+  const [cx, cy] = supportCentre(s);
+  const dx = to[0] - cx;
+  const dy = to[1] - cy;
+  if (dx === 0 && dy === 0) return plan;
+  let next = mapSupport(plan, id, (sup) => {
+    switch (sup.type) {
+      case "tree":
+      case "mast":
+        return {
+          ...sup,
+          position: [to[0], to[1]] as Point2,
+          ...(sup.type === "mast" && sup.guys
+            ? { guys: sup.guys.map((g) => ({ ...g, anchor: shift(g.anchor, dx, dy) })) }
+            : {}),
+        } as Support;
+      case "building":
+        return { ...sup, footprint: sup.footprint.map((p) => shift(p, dx, dy)) };
+      case "fence":
+        return { ...sup, path: sup.path.map((p) => shift(p, dx, dy)) };
+    }
+  });
+  next = mapAnchors(next, (a) => {
+    if (a.kind === "free" || a.support !== id) return a;
+    if (a.kind === "roof") return { ...a, at: shift(a.at, dx, dy) };
+    return a.at ? { ...a, at: shift(a.at, dx, dy) } : a;
+  });
+  return next;
+}
+
+/**
+ * Set a tree's or mast's height (a fence's too). Anchors that sat at the old top follow the new top, and
+ * anchors that would end up above it come down to it: raising a tree with the wire over its top raises
+ * the wire, which is what a user means.
+ */
+export function setSupportHeight(plan: Plan, id: string, height: number): Plan {
+  const s = plan.supports.find((x) => x.id === id);
+  if (!s || s.type === "building" || !(height > 0) || s.height === height) return plan;
+  const old = s.height;
+  let next = mapSupport(plan, id, (sup) => ({ ...sup, height }) as Support);
+  next = mapAnchors(next, (a) => {
+    if (a.kind !== "support" || a.support !== id) return a;
+    if (Math.abs(a.height - old) < 1e-6 || a.height > height) return { ...a, height };
+    return a;
+  });
+  if (s.type === "mast" && s.guys) {
+    next = mapSupport(next, id, (sup) =>
+      sup.type === "mast" && sup.guys
+        ? {
+            ...sup,
+            guys: sup.guys.map((g) => (g.attachHeight > height ? { ...g, attachHeight: height } : g)),
+          }
+        : sup,
+    );
+  }
+  return next;
+}
+
+/** Move an anchor: a free anchor to a point in space; a support anchor up or down its support. */
+export function setAnchorHeight(plan: Plan, anchorId: string, height: number): Plan {
+  return mapAnchors(plan, (a) => {
+    if (a.id !== anchorId) return a;
+    if (a.kind === "support") return a.height === height ? a : { ...a, height };
+    if (a.kind === "free") return { ...a, position: [a.position[0], a.position[1], height] };
+    return { ...a, above: Math.max(0, height) };
+  });
+}
+
+export function moveFreeAnchor(plan: Plan, anchorId: string, to: Point2): Plan {
+  return mapAnchors(plan, (a) =>
+    a.id === anchorId && a.kind === "free" ? { ...a, position: [to[0], to[1], a.position[2]] } : a,
+  );
+}
+
+export type NewSupportKind = "tree" | "metal-mast" | "wood-pole" | "building" | "fence";
+
+/** Add a support at a ground point with sensible, clearly ordinary defaults; returns the plan and the new id. */
+export function addSupport(plan: Plan, kind: NewSupportKind, at: Point2): { plan: Plan; id: string } {
+  const prefix = kind === "metal-mast" ? "mast" : kind === "wood-pole" ? "pole" : kind;
+  const id = mintId(plan, prefix);
+  const [x, y] = at;
+  let support: Support;
+  switch (kind) {
+    case "tree":
+      support = {
+        type: "tree",
+        id,
+        name: "New tree",
+        position: [x, y],
+        height: 9,
+        totalHeight: 11,
+        canopyRadius: 3,
+      };
+      break;
+    case "metal-mast":
+      support = {
+        type: "mast",
+        id,
+        name: "New metal mast",
+        position: [x, y],
+        height: 9,
+        diameter: 0.05,
+        material: "aluminium",
+        base: { kind: "grounded", tie: { kind: "contact" } },
+      };
+      break;
+    case "wood-pole":
+      support = {
+        type: "mast",
+        id,
+        name: "New wooden pole",
+        position: [x, y],
+        height: 7,
+        diameter: 0.12,
+        material: "wood",
+        base: { kind: "insulated" },
+      };
+      break;
+    case "building":
+      support = {
+        type: "building",
+        id,
+        name: "New building",
+        footprint: [
+          [x - 2.5, y - 2],
+          [x + 2.5, y - 2],
+          [x + 2.5, y + 2],
+          [x - 2.5, y + 2],
+        ],
+        eaveHeight: 2.5,
+        ridgeHeight: 4,
+        ridgeDeg: 90,
+      };
+      break;
+    case "fence":
+      support = {
+        type: "fence",
+        id,
+        name: "New fence",
+        path: [
+          [x - 3, y],
+          [x + 3, y],
+        ],
+        height: 1.8,
+        material: "wood",
+      };
+      break;
+  }
+  return { plan: { ...plan, supports: [...plan.supports, support] }, id };
+}
+
+/** Where a new wire run can attach: a tree or mast (at a height), or a free point in space. */
+export type AnchorTarget = { support: string; height?: number } | { point: [number, number, number] };
+
+/** A new run through the clicked targets (at least two), AWG 14 copper, not fed until the user says. */
+export function addWireRun(plan: Plan, targets: readonly AnchorTarget[]): { plan: Plan; id: string } | null {
+  if (targets.length < 2) return null;
+  const id = mintId(plan, "run");
+  const minted = new Set([id]);
+  const anchors: Anchor[] = [];
+  for (const t of targets) {
+    const aid = mintId(plan, "anchor", minted);
+    minted.add(aid);
+    if ("point" in t) {
+      anchors.push({
+        kind: "free",
+        id: aid,
+        name: "",
+        position: [t.point[0], t.point[1], Math.max(0, t.point[2])],
+      });
+      continue;
+    }
+    const s = plan.supports.find((x) => x.id === t.support);
+    if (!s) return null;
+    if (s.type === "building") {
+      const c = supportCentre(s);
+      anchors.push({ kind: "roof", id: aid, name: "", support: s.id, at: c, above: 0.3, rope: 0.5 });
+    } else if (s.type === "fence") {
+      anchors.push({
+        kind: "support",
+        id: aid,
+        name: "",
+        support: s.id,
+        height: s.height,
+        at: supportCentre(s),
+      });
+    } else {
+      const h = Math.min(t.height ?? supportHeight(s), s.height);
+      anchors.push({ kind: "support", id: aid, name: "", support: s.id, height: h, rope: 1 });
+    }
+  }
+  const run: WireRun = { id, name: "New wire run", anchors, wire: { awg: 14 }, material: "copper" };
+  return { plan: { ...plan, wireRuns: [...plan.wireRuns, run] }, id };
+}
+
+/** Add (or replace) a straight-down droop leg at one end of a run. */
+export function setDroop(
+  plan: Plan,
+  runId: string,
+  end: "start" | "end",
+  length: number,
+): { plan: Plan; id: string } | null {
+  const run = plan.wireRuns.find((r) => r.id === runId);
+  if (!run || !(length > 0)) return null;
+  const existing = run.droops?.find((d) => d.end === end);
+  const id = existing?.id ?? mintId(plan, "droop");
+  const droop: Droop = {
+    id,
+    name: existing?.name ?? `${end === "start" ? "Start" : "End"} droop`,
+    end,
+    length,
+  };
+  const droops = [...(run.droops ?? []).filter((d) => d.end !== end), droop];
+  return { plan: mapRun(plan, runId, (r) => ({ ...r, droops })), id };
+}
+
+export function setDroopLength(plan: Plan, droopId: string, length: number): Plan {
+  if (!(length > 0)) return plan;
+  const ref = findElement(plan, droopId);
+  if (!ref || ref.kind !== "droop") return plan;
+  return mapRun(plan, ref.run.id, (r) => ({
+    ...r,
+    droops: r.droops?.map((d) => (d.id === droopId ? { id: d.id, name: d.name, end: d.end, length } : d)),
+  }));
+}
+
+/**
+ * Put the feed on a run at a fraction of its conductor. One fed run is analysed at a time: the run
+ * becomes the active one; other runs keep their feeds (the schema allows several).
+ */
+export function setFeed(plan: Plan, runId: string, at: number): Plan {
+  const run = plan.wireRuns.find((r) => r.id === runId);
+  if (!run) return plan;
+  const clamped = Math.min(1, Math.max(0, at));
+  const feed = { at: clamped, system: run.feed?.system ?? { kind: "transformer" as const, ratio: 1 } };
+  const next = mapRun(plan, runId, (r) => ({ ...r, feed }));
+  const others = next.wireRuns.some((r) => r.id !== runId && r.feed);
+  return others ? { ...next, analysis: { ...next.analysis, activeRun: runId } } : next;
+}
+
+/** Set a plain numeric or text field on any element by id (the inspector's generic edit). */
+export function setField(plan: Plan, id: string, key: string, value: unknown): Plan {
+  const ref = findElement(plan, id);
+  if (!ref) return plan;
+  const put = <T extends object>(obj: T): T =>
+    (obj as Record<string, unknown>)[key] === value ? obj : ({ ...obj, [key]: value } as T);
+  switch (ref.kind) {
+    case "support":
+      return mapSupport(plan, id, put);
+    case "wireRun":
+      return mapRun(plan, id, put);
+    case "anchor":
+      return mapAnchors(plan, (a) => (a.id === id ? put(a) : a));
+    case "droop":
+      return mapRun(plan, ref.run.id, (r) => ({
+        ...r,
+        droops: r.droops?.map((d) => (d.id === id ? put(d) : d)),
+      }));
+    case "load":
+      return mapRun(plan, ref.run.id, (r) => ({
+        ...r,
+        loads: r.loads?.map((l) => (l.id === id ? put(l) : l)),
+      }));
+    case "walkway":
+      return { ...plan, walkways: plan.walkways.map((w) => (w.id === id ? put(w) : w)) };
+    case "keepOut":
+      return { ...plan, keepOuts: plan.keepOuts.map((k) => (k.id === id ? put(k) : k)) };
+    case "powerLine":
+      return { ...plan, powerLines: plan.powerLines.map((p) => (p.id === id ? put(p) : p)) };
+    case "guy":
+      return mapSupport(plan, ref.support.id, (s) =>
+        s.type === "mast" ? { ...s, guys: s.guys?.map((g) => (g.id === id ? put(g) : g)) } : s,
+      );
+  }
+}
+
+export type DeleteResult = { plan: Plan; refused?: undefined } | { plan: Plan; refused: string };
+
+/**
+ * Delete an element. Wires attached to a deleted support keep their shape: their anchors become free
+ * points where the support held them. Refuses (with the reason) what would leave no plan to analyse.
+ */
+export function deleteElement(plan: Plan, id: string): DeleteResult {
+  const ref = findElement(plan, id);
+  if (!ref) return { plan };
+  switch (ref.kind) {
+    case "support": {
+      const freed = mapAnchors(plan, (a) => {
+        if (a.kind === "free" || a.support !== id) return a;
+        const p = anchorPoint(plan, a) ?? [0, 0, 0];
+        return {
+          kind: "free",
+          id: a.id,
+          name: a.name,
+          position: p,
+          ...(a.sagToNext ? { sagToNext: a.sagToNext } : {}),
+        };
+      });
+      return { plan: { ...freed, supports: freed.supports.filter((s) => s.id !== id) } };
+    }
+    case "wireRun": {
+      if (plan.wireRuns.length === 1) return { plan, refused: "A plan needs at least one wire run." };
+      const wireRuns = plan.wireRuns.filter((r) => r.id !== id);
+      const hasFeed = wireRuns.some((r) => r.feed);
+      const analysis =
+        plan.analysis?.activeRun === id ? { ...plan.analysis, activeRun: undefined } : plan.analysis;
+      if (!hasFeed) return { plan, refused: "That is the only fed run: put the feed on another run first." };
+      return { plan: { ...plan, wireRuns, analysis } };
+    }
+    case "anchor": {
+      if (ref.run.anchors.length <= 2) {
+        return { plan, refused: "A run needs two anchors: delete the run instead." };
+      }
+      return {
+        plan: mapRun(plan, ref.run.id, (r) => ({ ...r, anchors: r.anchors.filter((a) => a.id !== id) })),
+      };
+    }
+    case "droop":
+      return {
+        plan: mapRun(plan, ref.run.id, (r) => ({ ...r, droops: r.droops?.filter((d) => d.id !== id) })),
+      };
+    case "load":
+      return {
+        plan: mapRun(plan, ref.run.id, (r) => ({ ...r, loads: r.loads?.filter((l) => l.id !== id) })),
+      };
+    case "guy":
+      return {
+        plan: mapSupport(plan, ref.support.id, (s) =>
+          s.type === "mast" ? { ...s, guys: s.guys?.filter((g) => g.id !== id) } : s,
+        ),
+      };
+    case "walkway":
+      return { plan: { ...plan, walkways: plan.walkways.filter((w) => w.id !== id) } };
+    case "keepOut":
+      return { plan: { ...plan, keepOuts: plan.keepOuts.filter((k) => k.id !== id) } };
+    case "powerLine":
+      return { plan: { ...plan, powerLines: plan.powerLines.filter((p) => p.id !== id) } };
+  }
+}
+
+const OFFSET = 2; // metres east for a duplicate, so it is visibly separate
+
+/** Duplicate a support, walkway, keep-out or wire run, offset a little; a copied run is never fed. */
+export function duplicateElement(plan: Plan, id: string): { plan: Plan; id: string } | null {
+  const ref = findElement(plan, id);
+  if (!ref) return null;
+  const minted = new Set<string>();
+  const fresh = (prefix: string) => {
+    const n = mintId(plan, prefix, minted);
+    minted.add(n);
+    return n;
+  };
+  if (ref.kind === "support") {
+    const s = ref.support;
+    const nid = fresh(s.id.replace(/-\d+$/, "") || s.type);
+    let copy: Support = { ...s, id: nid, name: s.name ? `${s.name} copy` : "" } as Support;
+    if (copy.type === "mast" && copy.guys)
+      copy = { ...copy, guys: copy.guys.map((g) => ({ ...g, id: fresh("guy") })) };
+    const placed = { ...plan, supports: [...plan.supports, copy] };
+    const [cx, cy] = supportCentre(s);
+    return { plan: moveSupport(placed, nid, [cx + OFFSET, cy]), id: nid };
+  }
+  if (ref.kind === "wireRun") {
+    const r = ref.run;
+    const nid = fresh("run");
+    const anchors = r.anchors.map((a): Anchor => {
+      const aid = fresh("anchor");
+      if (a.kind === "free")
+        return { ...a, id: aid, position: [a.position[0] + OFFSET, a.position[1], a.position[2]] };
+      // A copy cannot hang on the same support at the same point; make it free beside the original.
+      const p = anchorPoint(plan, a) ?? [0, 0, 0];
+      return { kind: "free", id: aid, name: a.name, position: [p[0] + OFFSET, p[1], p[2]] };
+    });
+    const copy: WireRun = {
+      ...r,
+      id: nid,
+      name: r.name ? `${r.name} copy` : "",
+      anchors,
+      droops: r.droops?.map((d) => ({ ...d, id: fresh("droop") })),
+      loads: r.loads?.map((l) => ({ ...l, id: fresh("load") })),
+      feed: undefined,
+    };
+    return { plan: { ...plan, wireRuns: [...plan.wireRuns, copy] }, id: nid };
+  }
+  if (ref.kind === "walkway") {
+    const nid = fresh("walkway");
+    const copy = { ...ref.walkway, id: nid, path: ref.walkway.path.map((p) => shift(p, OFFSET, 0)) };
+    return { plan: { ...plan, walkways: [...plan.walkways, copy] }, id: nid };
+  }
+  if (ref.kind === "keepOut") {
+    const nid = fresh("keepout");
+    const copy = { ...ref.keepOut, id: nid, outline: ref.keepOut.outline.map((p) => shift(p, OFFSET, 0)) };
+    return { plan: { ...plan, keepOuts: [...plan.keepOuts, copy] }, id: nid };
+  }
+  return null;
+}
+
+/** Conductor length of a run as sketched (for the inspector's read-outs). */
+export function runLength(plan: Plan, runId: string): number | null {
+  const r = plan.wireRuns.find((x) => x.id === runId);
+  return r ? (sketchRun(plan, r)?.length ?? null) : null;
+}
+
+export { allIds };
