@@ -60,17 +60,32 @@ export function allIds(plan: Plan): Set<string> {
   const ids = new Set<string>();
   for (const s of plan.supports) {
     ids.add(s.id);
-    if (s.type === "mast") s.guys?.forEach((g) => ids.add(g.id));
+    if (s.type === "mast")
+      s.guys?.forEach((g) => {
+        ids.add(g.id);
+      });
   }
   for (const r of plan.wireRuns) {
     ids.add(r.id);
-    r.anchors.forEach((a) => ids.add(a.id));
-    r.droops?.forEach((d) => ids.add(d.id));
-    r.loads?.forEach((l) => ids.add(l.id));
+    r.anchors.forEach((a) => {
+      ids.add(a.id);
+    });
+    r.droops?.forEach((d) => {
+      ids.add(d.id);
+    });
+    r.loads?.forEach((l) => {
+      ids.add(l.id);
+    });
   }
-  plan.walkways.forEach((w) => ids.add(w.id));
-  plan.keepOuts.forEach((k) => ids.add(k.id));
-  plan.powerLines.forEach((p) => ids.add(p.id));
+  plan.walkways.forEach((w) => {
+    ids.add(w.id);
+  });
+  plan.keepOuts.forEach((k) => {
+    ids.add(k.id);
+  });
+  plan.powerLines.forEach((p) => {
+    ids.add(p.id);
+  });
   return ids;
 }
 

@@ -93,7 +93,9 @@ export function sketchRun(plan: Plan, run: WireRun): RunSketch | null {
   }
   insulators.push(wirePts[0], wirePts[last]);
   const anchorPoints = new Map<string, Point3>();
-  run.anchors.forEach((a, i) => anchorPoints.set(a.id, wirePts[i]));
+  run.anchors.forEach((a, i) => {
+    anchorPoints.set(a.id, wirePts[i]);
+  });
 
   const spans: Point3[] = [wirePts[0]];
   for (let i = 0; i < last; i++) {
