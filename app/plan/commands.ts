@@ -279,7 +279,7 @@ export function setDroop(
 export function setDroopLength(plan: Plan, droopId: string, length: number): Plan {
   if (!(length > 0)) return plan;
   const ref = findElement(plan, droopId);
-  if (!ref || ref.kind !== "droop") return plan;
+  if (ref?.kind !== "droop") return plan;
   return mapRun(plan, ref.run.id, (r) => ({
     ...r,
     droops: r.droops?.map((d) => (d.id === droopId ? { id: d.id, name: d.name, end: d.end, length } : d)),
