@@ -4,19 +4,79 @@
  * Storage: row-major n×n, element (i, j) at i·n + j. After luFactor the strict lower triangle holds
  * L (unit diagonal implied) and the upper triangle holds U, with P·A = L·U; piv[k] is the row that was
  * swapped into row k at step k (LAPACK-style sequential interchanges).
+ *
+ * Speed (measured with tests/bench/run.ts, lu-400): the algorithm is recursive LU (Toledo 1997, "Locality
+ * of reference in LU decomposition with partial pivoting", SIAM J. Matrix Anal. Appl. 18(4)): split the
+ * columns in half, factor the left half, update the right half, recurse. Nearly all flops then land in one
+ * rank-k update, A[i, j] −= Σ_k L[i, k]·U[k, j], done by a register-blocked kernel that updates four rows
+ * from two pivot rows per sweep over contiguous row segments (i-k-j order), so each loaded U element feeds
+ * four complex multiply-adds and each A element is loaded and stored once per two pivots. The pivot-row
+ * chunk (KCHUNK rows of U) stays in L2 while all rows below stream past it.
  */
+
+/** Panels this narrow are factored column by column (the recursion's base case). */
+const BASE_COLUMNS = 8;
+/** Pivot rows per pass of the rank-k update: KCHUNK·n·16 bytes of U should stay in L2 (~512 KiB here). */
+const KCHUNK = 64;
+/** Rows and pivots of the register-blocked update kernel (kernel4x2). */
+const ROWS = 4;
+const PIVOTS = 2;
 
 /** Factor A in place. Throws an Error naming the column when A is singular (to working precision). */
 export function luFactor(n: number, re: Float64Array, im: Float64Array, piv: Int32Array): void {
   checkSizes("luFactor", n, re, im, piv);
   const tiny = singularThreshold(n, re, im);
-  for (let k = 0; k < n; k++) {
+  factorColumns(n, re, im, piv, 0, n, tiny);
+}
+
+/** Recursive LU of the column panel [c0, c1) over rows c0..n−1; row swaps span the whole matrix. */
+function factorColumns(
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  piv: Int32Array,
+  c0: number,
+  c1: number,
+  tiny: number,
+): void {
+  const w = c1 - c0;
+  if (w <= BASE_COLUMNS) {
+    factorNarrow(n, re, im, piv, c0, c1, tiny);
+    return;
+  }
+  // Split at a multiple of the kernel's pivot count so the update runs without remainders where it can.
+  const h = c0 + ((w >> 1) & ~3 || 4);
+  factorColumns(n, re, im, piv, c0, h, tiny);
+  // U12 = L11⁻¹·A12 (rows [c0, h), columns [h, c1)), ROWS rows at a time: the part of each row block
+  // that depends on finished rows goes through the fast kernel, the small triangle inside it row by row.
+  for (let ib = c0; ib < h; ib += ROWS) {
+    const ie = Math.min(h, ib + ROWS);
+    rankUpdate(re, im, n, ib, ie, c0, ib, h, c1);
+    for (let i = ib + 1; i < ie; i++) rankUpdate(re, im, n, i, i + 1, ib, i, h, c1);
+  }
+  // Schur complement: A22 −= L21·U12 (rows [h, n), columns [h, c1)).
+  rankUpdate(re, im, n, h, n, c0, h, h, c1);
+  factorColumns(n, re, im, piv, h, c1, tiny);
+}
+
+/** Column-by-column right-looking LU of a narrow panel [c0, c1) over rows c0..n−1. */
+function factorNarrow(
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  piv: Int32Array,
+  c0: number,
+  c1: number,
+  tiny: number,
+): void {
+  const nn = n * n;
+  for (let k = c0; k < c1; k++) {
     // Pivot: largest |a_ik|² in column k at or below the diagonal.
     let p = k;
     let best = -1;
-    for (let i = k; i < n; i++) {
-      const r = re[i * n + k];
-      const m = im[i * n + k];
+    for (let i = k, ik = k * n + k; i < n; i++, ik += n) {
+      const r = re[ik];
+      const m = im[ik];
       const mag = r * r + m * m;
       if (mag > best) {
         best = mag;
@@ -26,30 +86,190 @@ export function luFactor(n: number, re: Float64Array, im: Float64Array, piv: Int
     piv[k] = p;
     if (!(best > tiny) || !Number.isFinite(best)) throw singularError(k, n, best, tiny);
     if (p !== k) swapRows(n, re, im, k, p);
-    const kk = k * n + k;
-    const dr = re[kk];
-    const di = im[kk];
+    const rk = k * n;
+    const dr = re[rk + k];
+    const di = im[rk + k];
     // 1 / pivot
     const inv = 1 / (dr * dr + di * di);
     const ir = dr * inv;
     const ii = -di * inv;
-    for (let i = k + 1; i < n; i++) {
-      const ik = i * n + k;
-      const ar = re[ik];
-      const ai = im[ik];
+    for (let ri = rk + n; ri < nn; ri += n) {
+      const ar = re[ri + k];
+      const ai = im[ri + k];
       const lr = ar * ir - ai * ii;
       const li = ar * ii + ai * ir;
-      re[ik] = lr;
-      im[ik] = li;
-      const ri = i * n;
-      const rk = k * n;
-      for (let j = k + 1; j < n; j++) {
+      re[ri + k] = lr;
+      im[ri + k] = li;
+      for (let j = k + 1; j < c1; j++) {
         const ur = re[rk + j];
         const ui = im[rk + j];
         re[ri + j] -= lr * ur - li * ui;
         im[ri + j] -= lr * ui + li * ur;
       }
     }
+  }
+}
+
+/** A[i0:i1, j0:j1] −= A[i0:i1, k0:k1]·A[k0:k1, j0:j1] (the blocks must not overlap). */
+function rankUpdate(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  i0: number,
+  i1: number,
+  k0: number,
+  k1: number,
+  j0: number,
+  j1: number,
+): void {
+  if (j0 >= j1) return;
+  for (let kc = k0; kc < k1; kc += KCHUNK) {
+    const kcEnd = Math.min(k1, kc + KCHUNK);
+    let i = i0;
+    for (; i + ROWS <= i1; i += ROWS) {
+      let k = kc;
+      for (; k + PIVOTS <= kcEnd; k += PIVOTS) kernel4x2(re, im, n, i, k, j0, j1);
+      for (; k < kcEnd; k++) kernel4x1(re, im, n, i, k, j0, j1);
+    }
+    for (; i < i1; i++) {
+      let k = kc;
+      for (; k + PIVOTS <= kcEnd; k += PIVOTS) kernel1x2(re, im, n, i, k, j0, j1);
+      for (; k < kcEnd; k++) kernel1x1(re, im, n, i, k, j0, j1);
+    }
+  }
+}
+
+/** Rows i..i+3, pivots k..k+1: A[i+r, j] -= Σ_p A[i+r, k+p]·A[k+p, j] for j in [j0, j1). */
+function kernel4x2(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  i: number,
+  k: number,
+  j0: number,
+  j1: number,
+): void {
+  const u0 = k * n;
+  const u1 = (k + 1) * n;
+  const a0 = i * n;
+  const l00r = re[a0 + k];
+  const l00i = im[a0 + k];
+  const l01r = re[a0 + k + 1];
+  const l01i = im[a0 + k + 1];
+  const a1 = (i + 1) * n;
+  const l10r = re[a1 + k];
+  const l10i = im[a1 + k];
+  const l11r = re[a1 + k + 1];
+  const l11i = im[a1 + k + 1];
+  const a2 = (i + 2) * n;
+  const l20r = re[a2 + k];
+  const l20i = im[a2 + k];
+  const l21r = re[a2 + k + 1];
+  const l21i = im[a2 + k + 1];
+  const a3 = (i + 3) * n;
+  const l30r = re[a3 + k];
+  const l30i = im[a3 + k];
+  const l31r = re[a3 + k + 1];
+  const l31i = im[a3 + k + 1];
+  for (let j = j0; j < j1; j++) {
+    const u0r = re[u0 + j];
+    const u0i = im[u0 + j];
+    const u1r = re[u1 + j];
+    const u1i = im[u1 + j];
+    re[a0 + j] -= l00r * u0r - l00i * u0i + (l01r * u1r - l01i * u1i);
+    im[a0 + j] -= l00r * u0i + l00i * u0r + (l01r * u1i + l01i * u1r);
+    re[a1 + j] -= l10r * u0r - l10i * u0i + (l11r * u1r - l11i * u1i);
+    im[a1 + j] -= l10r * u0i + l10i * u0r + (l11r * u1i + l11i * u1r);
+    re[a2 + j] -= l20r * u0r - l20i * u0i + (l21r * u1r - l21i * u1i);
+    im[a2 + j] -= l20r * u0i + l20i * u0r + (l21r * u1i + l21i * u1r);
+    re[a3 + j] -= l30r * u0r - l30i * u0i + (l31r * u1r - l31i * u1i);
+    im[a3 + j] -= l30r * u0i + l30i * u0r + (l31r * u1i + l31i * u1r);
+  }
+}
+
+/** One row i, pivots k, k+1: A[i+r, j] -= Σ_p A[i+r, k+p]·A[k+p, j] for j in [j0, j1). */
+function kernel1x2(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  i: number,
+  k: number,
+  j0: number,
+  j1: number,
+): void {
+  const u0 = k * n;
+  const u1 = (k + 1) * n;
+  const a0 = i * n;
+  const l00r = re[a0 + k];
+  const l00i = im[a0 + k];
+  const l01r = re[a0 + k + 1];
+  const l01i = im[a0 + k + 1];
+  for (let j = j0; j < j1; j++) {
+    const u0r = re[u0 + j];
+    const u0i = im[u0 + j];
+    const u1r = re[u1 + j];
+    const u1i = im[u1 + j];
+    re[a0 + j] -= l00r * u0r - l00i * u0i + (l01r * u1r - l01i * u1i);
+    im[a0 + j] -= l00r * u0i + l00i * u0r + (l01r * u1i + l01i * u1r);
+  }
+}
+
+/** Rows i..i+3, one pivot k: A[i+r, j] -= Σ_p A[i+r, k+p]·A[k+p, j] for j in [j0, j1). */
+function kernel4x1(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  i: number,
+  k: number,
+  j0: number,
+  j1: number,
+): void {
+  const u0 = k * n;
+  const a0 = i * n;
+  const l00r = re[a0 + k];
+  const l00i = im[a0 + k];
+  const a1 = (i + 1) * n;
+  const l10r = re[a1 + k];
+  const l10i = im[a1 + k];
+  const a2 = (i + 2) * n;
+  const l20r = re[a2 + k];
+  const l20i = im[a2 + k];
+  const a3 = (i + 3) * n;
+  const l30r = re[a3 + k];
+  const l30i = im[a3 + k];
+  for (let j = j0; j < j1; j++) {
+    const u0r = re[u0 + j];
+    const u0i = im[u0 + j];
+    re[a0 + j] -= l00r * u0r - l00i * u0i;
+    im[a0 + j] -= l00r * u0i + l00i * u0r;
+    re[a1 + j] -= l10r * u0r - l10i * u0i;
+    im[a1 + j] -= l10r * u0i + l10i * u0r;
+    re[a2 + j] -= l20r * u0r - l20i * u0i;
+    im[a2 + j] -= l20r * u0i + l20i * u0r;
+    re[a3 + j] -= l30r * u0r - l30i * u0i;
+    im[a3 + j] -= l30r * u0i + l30i * u0r;
+  }
+}
+
+/** One row i, one pivot k. */
+function kernel1x1(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  i: number,
+  k: number,
+  j0: number,
+  j1: number,
+): void {
+  const u0 = k * n;
+  const a0 = i * n;
+  const lr = re[a0 + k];
+  const li = im[a0 + k];
+  for (let j = j0; j < j1; j++) {
+    const ur = re[u0 + j];
+    const ui = im[u0 + j];
+    re[a0 + j] -= lr * ur - li * ui;
+    im[a0 + j] -= lr * ui + li * ur;
   }
 }
 
