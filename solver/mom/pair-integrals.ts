@@ -44,7 +44,7 @@ export function pairIntegrals(
   const d = Math.sqrt(dxm * dxm + dym * dym + dzm * dzm);
   const lp = P.len[p];
   const lq = Q.len[q];
-  const h = lp > lq ? lp : lq;
+  const h = Math.max(lp, lq);
   const ap = P.radius[p];
   const aq = Q.radius[q];
   const a2 = 0.5 * (ap * ap + aq * aq);

@@ -1,0 +1,121 @@
+/**
+ * The solver's public face.
+ *
+ *   solveModel(model, options)      one call: mesh, fill, factor, solve at every frequency, resonances.
+ *   prepareModel(model, options)    the same split in two: geometry, mesh and ground built once, then
+ *                                   solveAt(frequencyHz) per frequency (sweeps, trimming loops).
+ *
+ * The model is assumed to have passed the zod schema (solver/model/schema.ts); geometric problems
+ * (zero-length segments, points below ground, feeds on free ends, …) still throw ModelError with the
+ * path of the offending field.
+ */
+import { findResonances } from "./analysis/resonance";
+import { frequencyListMHz } from "./analysis/sweep";
+import { computeFarField } from "./fields/farfield";
+import type { FarFieldFn } from "./fields/types";
+import { buildMesh } from "./geometry/mesh";
+import type { Mesh } from "./geometry/types";
+import type { GroundKernel } from "./ground/kernel";
+import type { FrequencyResult, MeshView, SolveOptions, SolveResult, Warning, WireModel } from "./model/types";
+import { type RealGroundFactory, selectGround } from "./mom/ground-select";
+import { type FrequencySolveOptions, type MomSolver, makeMomSolver } from "./mom/prepare";
+import { mirrorSegmentSet } from "./mom/segments";
+
+export interface PreparedModel {
+  readonly mesh: MeshView;
+  readonly segments: number;
+  readonly unknowns: number;
+  readonly warnings: Warning[];
+  readonly groundMethod: string;
+  /** Frequencies of the model, MHz. */
+  readonly frequenciesMHz: number[];
+  /** Solve at one frequency (Hz). Options default to those given to prepareModel. */
+  solveAt(frequencyHz: number, opts?: FrequencySolveOptions): FrequencyResult;
+}
+
+/** Internal knobs (tests, benchmarks, the lossy-ground factory); not part of the app's contract. */
+export interface EngineHooks {
+  realGround?: RealGroundFactory;
+  farField?: FarFieldFn | null;
+}
+
+export interface PreparedInternals {
+  meshDetail: Mesh;
+  ground: GroundKernel;
+  solver: MomSolver;
+}
+
+export function prepareModel(
+  model: WireModel,
+  options: SolveOptions = {},
+  hooks: EngineHooks = {},
+): PreparedModel {
+  return prepareInternal(model, options, hooks).prepared;
+}
+
+export function prepareInternal(
+  model: WireModel,
+  options: SolveOptions = {},
+  hooks: EngineHooks = {},
+): { prepared: PreparedModel; internals: PreparedInternals } {
+  const freqs = frequencyListMHz(model.frequenciesMHz);
+  const maxHz = Math.max(...freqs) * 1e6;
+  const spw = options.segmentsPerWavelength ?? 25;
+  const mesh = buildMesh(model, {
+    maxFrequencyHz: maxHz,
+    segmentsPerWavelength: spw,
+    ground: model.ground.kind !== "free",
+  });
+  const setup = {
+    segments: mesh.segs,
+    mirrored: mirrorSegmentSet(mesh.segs),
+    wireOfSegment: mesh.view.wireOfSegment,
+    connections: model.wires.map((w) => w.groundConnection),
+  };
+  const { kernel, farField } = selectGround(model.ground, setup, hooks.realGround);
+  const solver = makeMomSolver({
+    mesh,
+    ground: kernel,
+    farFieldGround: farField,
+    referenceOhms: model.referenceOhms ?? 50,
+    farField: hooks.farField === null ? undefined : (hooks.farField ?? computeFarField),
+  });
+  const defaults: FrequencySolveOptions = {
+    patternStepDeg: options.patternStepDeg ?? 2,
+    keepPattern: options.keepPattern ?? false,
+  };
+  const prepared: PreparedModel = {
+    mesh: mesh.view,
+    segments: mesh.segs.n,
+    unknowns: solver.unknowns,
+    warnings: mesh.warnings,
+    groundMethod: kernel.method,
+    frequenciesMHz: freqs,
+    solveAt: (hz, opts) => solver.solveAt(hz, { ...defaults, ...opts }),
+  };
+  return { prepared, internals: { meshDetail: mesh, ground: kernel, solver } };
+}
+
+export function solveModel(
+  model: WireModel,
+  options: SolveOptions = {},
+  hooks: EngineHooks = {},
+): SolveResult {
+  const p = prepareModel(model, options, hooks);
+  const results = p.frequenciesMHz.map((mhz) => p.solveAt(mhz * 1e6));
+  const resonancesMHz = findResonances(
+    results.map((r) => r.mhz),
+    results.map((r) => r.impedance[1]),
+  ).map((r) => r.mhz);
+  return {
+    segments: p.segments,
+    unknowns: p.unknowns,
+    results,
+    resonancesMHz,
+    warnings: p.warnings,
+    mesh: p.mesh,
+    groundMethod: p.groundMethod,
+  };
+}
+
+export type { FrequencySolveOptions };
