@@ -1,0 +1,241 @@
+/**
+ * Speed benchmarks (not tests: nothing here asserts a time).
+ *
+ *   npm run bench                     readable table of medians
+ *   npm run --silent bench -- --json  {"cases":[{name, unknowns, frequencies, medianMs, ...}]} on stdout
+ *   npm run bench -- --only=lu-400    run one case (comma-separated list allowed)
+ *
+ * Each case is warmed up (so the JIT has compiled the hot loops) and then repeated; we report the median,
+ * which is robust to the odd slow run on a shared machine, and the minimum, which is the machine's best.
+ * Notes (skipped cases, sanity warnings) go to stderr so the JSON on stdout stays clean.
+ */
+
+import type { SolveOptions, SolveResult, WireModel } from "../../solver/model/types";
+import { luFactor, luSolve } from "../../solver/mom/lu";
+import { randomSystem, relResidual } from "../unit/linalg/reference";
+import { AVERAGE_GROUND, PERFECT_GROUND, yardModel } from "./models";
+import { naiveLuFactor } from "./naive-lu";
+
+interface CaseResult extends Facts {
+  name: string;
+  medianMs: number;
+  minMs: number;
+  runs: number;
+  gflops?: number;
+}
+
+/** What a case reports about itself besides the timings. */
+interface Facts {
+  unknowns: number;
+  frequencies: number;
+  targetMs?: number;
+  [extra: string]: unknown;
+}
+
+interface BenchCase {
+  name: string;
+  warmup: number;
+  runs: number;
+  /** Builds the inputs once; run() is timed per repetition, describe() reports on the last run. */
+  prepare(): Promise<{
+    run: () => void;
+    describe: () => Facts;
+  }>;
+}
+
+const args = process.argv.slice(2);
+const json = args.includes("--json");
+const only = args
+  .find((a) => a.startsWith("--only="))
+  ?.slice(7)
+  .split(",");
+const note = (msg: string) => process.stderr.write(`${msg}\n`);
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+/** 8/3·n³ real flops: complex LU costs n³/3 complex multiply-adds, each 8 real flops (solve is O(n²)). */
+const luFlops = (n: number) => (8 / 3) * n ** 3;
+
+function luCase(name: string, n: number, factor: typeof luFactor, warmup: number, runs: number): BenchCase {
+  return {
+    name,
+    warmup,
+    runs,
+    async prepare() {
+      // A plain random matrix (no diagonal shift), so partial pivoting really swaps rows.
+      const sys = randomSystem(n, 20240601, { diagonalShift: 0 });
+      const re = new Float64Array(n * n);
+      const im = new Float64Array(n * n);
+      const piv = new Int32Array(n);
+      const xr = new Float64Array(n);
+      const xi = new Float64Array(n);
+      return {
+        run() {
+          re.set(sys.aRe);
+          im.set(sys.aIm);
+          xr.set(sys.bRe);
+          xi.set(sys.bIm);
+          factor(n, re, im, piv);
+          luSolve(n, re, im, piv, xr, xi);
+        },
+        describe() {
+          const residual = relResidual(n, sys.aRe, sys.aIm, xr, xi, sys.bRe, sys.bIm);
+          if (!(residual < 1e-9))
+            note(`WARNING ${name}: relative residual ${residual} — the result is wrong`);
+          return { unknowns: n, frequencies: 1, residual };
+        },
+      };
+    },
+  };
+}
+
+type Solve = (model: WireModel, options?: SolveOptions) => SolveResult;
+let solveModelCache: Solve | null | undefined;
+
+/** The engine is written in parallel with this harness: load it lazily and report when it is missing. */
+async function loadSolveModel(): Promise<Solve | null> {
+  if (solveModelCache !== undefined) return solveModelCache;
+  try {
+    const mod = (await import("../../solver/index")) as { solveModel?: Solve };
+    solveModelCache = typeof mod.solveModel === "function" ? mod.solveModel : null;
+    if (!solveModelCache) note("solver/index.ts has no solveModel export: not available yet");
+  } catch (e) {
+    note(`solveModel not available yet (${(e as Error).message.split("\n")[0]})`);
+    solveModelCache = null;
+  }
+  return solveModelCache;
+}
+
+class Skip extends Error {}
+
+function modelCase(
+  name: string,
+  model: WireModel,
+  options: SolveOptions,
+  targetMs: number,
+  warmup: number,
+  runs: number,
+): BenchCase {
+  return {
+    name,
+    warmup,
+    runs,
+    async prepare() {
+      const solve = await loadSolveModel();
+      if (!solve) throw new Skip("solveModel not available yet");
+      let last: SolveResult | undefined;
+      try {
+        last = solve(model, options);
+      } catch (e) {
+        throw new Skip(`solveModel threw: ${(e as Error).message.split("\n")[0]}`);
+      }
+      return {
+        run() {
+          last = solve(model, options);
+        },
+        describe() {
+          const r = last!;
+          const mid = r.results[r.results.length >> 1];
+          return {
+            unknowns: r.unknowns,
+            frequencies: r.results.length,
+            targetMs,
+            mhz: mid.mhz,
+            impedance: mid.impedance,
+            swr: mid.swr,
+            ...(options.patternStepDeg ? { peakGainDbi: mid.peakGainDbi } : {}),
+            groundMethod: r.groundMethod,
+          };
+        },
+      };
+    },
+  };
+}
+
+const cases: BenchCase[] = [
+  luCase("lu-400", 400, luFactor, 5, 15),
+  luCase("lu-400-naive", 400, naiveLuFactor, 1, 5),
+  modelCase("yard-200", yardModel(PERFECT_GROUND, [14.15]), { patternStepDeg: 2 }, 20, 3, 11),
+  modelCase(
+    "sweep-41",
+    yardModel(PERFECT_GROUND, { from: 14.0, to: 14.35, count: 41 }),
+    { patternStepDeg: 0 },
+    250,
+    1,
+    5,
+  ),
+  modelCase("yard-200-real", yardModel(AVERAGE_GROUND, [14.15]), { patternStepDeg: 2 }, 40, 2, 7),
+];
+
+async function main(): Promise<void> {
+  const out: CaseResult[] = [];
+  for (const c of cases) {
+    if (only && !only.includes(c.name)) continue;
+    let prepared: Awaited<ReturnType<BenchCase["prepare"]>>;
+    try {
+      prepared = await c.prepare();
+    } catch (e) {
+      if (e instanceof Skip) {
+        note(`skip ${c.name}: ${e.message}`);
+        continue;
+      }
+      throw e;
+    }
+    for (let i = 0; i < c.warmup; i++) prepared.run();
+    const times: number[] = [];
+    for (let i = 0; i < c.runs; i++) {
+      const t0 = performance.now();
+      prepared.run();
+      times.push(performance.now() - t0);
+    }
+    const facts = prepared.describe();
+    const res: CaseResult = {
+      name: c.name,
+      ...facts,
+      medianMs: round(median(times), 2),
+      minMs: round(Math.min(...times), 2),
+      runs: c.runs,
+    };
+    if (c.name.startsWith("lu-")) {
+      res.gflops = round(luFlops(facts.unknowns) / (res.medianMs * 1e6), 2);
+      if (c.name === "lu-400") res.targetGflops = 8;
+    }
+    out.push(res);
+    if (!json) printRow(res);
+  }
+  if (json) process.stdout.write(`${JSON.stringify({ cases: out }, null, 2)}\n`);
+}
+
+const round = (x: number, d: number) => Math.round(x * 10 ** d) / 10 ** d;
+
+let headerDone = false;
+function printRow(r: CaseResult): void {
+  if (!headerDone) {
+    console.log(
+      `${"case".padEnd(15)}${"unknowns".padStart(9)}${"freqs".padStart(7)}${"median ms".padStart(11)}${"min ms".padStart(9)}${"target".padStart(9)}  notes`,
+    );
+    headerDone = true;
+  }
+  const target = r.targetMs !== undefined ? `<${r.targetMs}` : r.targetGflops ? `≥${r.targetGflops}GF` : "";
+  const notes: string[] = [];
+  if (r.gflops !== undefined) notes.push(`${r.gflops} GFlop/s`);
+  if (Array.isArray(r.impedance)) {
+    const [zr, zi] = r.impedance as number[];
+    notes.push(
+      `Z ${zr.toFixed(1)}${zi < 0 ? "−" : "+"}j${Math.abs(zi).toFixed(1)} Ω`,
+      `SWR ${(r.swr as number).toFixed(2)}`,
+    );
+  }
+  console.log(
+    `${r.name.padEnd(15)}${String(r.unknowns).padStart(9)}${String(r.frequencies).padStart(7)}${r.medianMs.toFixed(2).padStart(11)}${r.minMs.toFixed(2).padStart(9)}${target.padStart(9)}  ${notes.join(", ")}`,
+  );
+}
+
+main().catch((e) => {
+  note(`benchmark failed: ${(e as Error).stack ?? e}`);
+  process.exitCode = 1;
+});
