@@ -116,9 +116,14 @@ export const computeFarField: FarFieldFn = (req) => {
     }
   }
 
-  // ∫U dΩ: periodic trapezoid in bearing (spectral), Clenshaw–Curtis in sin e (sphere) or the O(h⁴)
+  // ∫U dΩ: periodic trapezoid in bearing (spectral), Clenshaw–Curtis in sin e (sphere) or Gregory's
   // end-corrected trapezoid in e (hemisphere, cos e folded into the weights).
-  const weights = overGround ? grid.hemiWeights : grid.sphereWeights;
+  const weights =
+    req.ground.kind === "free"
+      ? grid.sphereWeights
+      : req.ground.kind === "perfect"
+        ? grid.evenHemiWeights
+        : grid.hemiWeights;
   let radiated = 0;
   let uMax = 0;
   let peak = 0;

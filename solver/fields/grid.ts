@@ -22,8 +22,12 @@ export interface DirectionGrid {
   horizon: number;
   /** ∫_{−1}^{1} f(sin e) d(sin e) ≈ Σ_i sphereWeights[i] f_i  (Clenshaw–Curtis, all rows). */
   sphereWeights: Float64Array;
-  /** ∫_0^{π/2} f(e) cos e de ≈ Σ hemiWeights[i − horizon] f_i over rows i ≥ horizon (cos e folded in). */
+  /** ∫_0^{π/2} f(e) cos e de ≈ Σ hemiWeights[i − horizon] f_i over rows i ≥ horizon (cos e folded in):
+   *  Gregory's rule in e, for any smooth f. */
   hemiWeights: Float64Array;
+  /** The same integral for f even about the horizon (perfect ground: U(−e) = U(e)), as half the
+   *  Clenshaw–Curtis sphere rule: spectrally accurate because the horizon is then no end point. */
+  evenHemiWeights: Float64Array;
 }
 
 const DEG = Math.PI / 180;
@@ -59,16 +63,28 @@ export function clenshawCurtisWeights(n: number): Float64Array {
   return w;
 }
 
+/** Gregory's end-correction coefficients (Hildebrand, Introduction to Numerical Analysis, §5.9). */
+const GREGORY = [1 / 12, 1 / 24, 19 / 720, 3 / 160, 863 / 60480];
+
 /**
- * Weights for ∫ f(e) de on uniform nodes including both ends, error O(h⁴): the trapezoid rule with
- * end corrections 3/8, 7/6, 23/24 (Press et al., Numerical Recipes, 3rd ed., eq. 4.1.14). Needs ≥ 6 nodes.
+ * Weights for ∫ f(e) de on uniform nodes including both ends: Gregory's formula, the trapezoid rule with
+ * end corrections from forward differences at the start and backward differences at the end,
+ *   ∫ = T − h Σ_m G_m (∇^m f_n + (−1)^m Δ^m f_0),
+ * using as many differences (up to 5) as the node count allows; exact for polynomials of that degree.
  */
-export function endCorrectedTrapezoidWeights(nodes: number, h: number): Float64Array {
+export function gregoryWeights(nodes: number, h: number): Float64Array {
   const w = new Float64Array(nodes).fill(h);
-  const ends = [3 / 8, 7 / 6, 23 / 24];
-  for (let i = 0; i < 3; i++) {
-    w[i] = ends[i] * h;
-    w[nodes - 1 - i] = ends[i] * h;
+  w[0] = h / 2;
+  w[nodes - 1] = h / 2;
+  const orders = Math.min(GREGORY.length, Math.floor((nodes - 1) / 2));
+  for (let m = 1; m <= orders; m++) {
+    let binom = 1; // C(m, i)
+    for (let i = 0; i <= m; i++) {
+      // Δ^m f_0 = Σ_i (−1)^{m−i} C(m,i) f_i ; ∇^m f_n = Σ_i (−1)^i C(m,i) f_{n−i}
+      w[i] -= h * GREGORY[m - 1] * (-1) ** m * (-1) ** (m - i) * binom;
+      w[nodes - 1 - i] -= h * GREGORY[m - 1] * (-1) ** i * binom;
+      binom = (binom * (m - i)) / (i + 1);
+    }
   }
   return w;
 }
@@ -107,6 +123,7 @@ export function directionGrid(stepDeg: number): DirectionGrid {
     sinB[j] = sinDeg(b);
     cosB[j] = cosDeg(b);
   }
+  const sphereWeights = clenshawCurtisWeights(nE - 1);
   const grid: DirectionGrid = {
     stepDeg,
     elevationsDeg,
@@ -116,10 +133,9 @@ export function directionGrid(stepDeg: number): DirectionGrid {
     sinB,
     cosB,
     horizon: perQuarter,
-    sphereWeights: clenshawCurtisWeights(nE - 1),
-    hemiWeights: endCorrectedTrapezoidWeights(perQuarter + 1, stepDeg * DEG).map(
-      (w, k) => w * cosE[perQuarter + k],
-    ),
+    sphereWeights,
+    evenHemiWeights: sphereWeights.slice(perQuarter).map((w, k) => (k === 0 ? w / 2 : w)),
+    hemiWeights: gregoryWeights(perQuarter + 1, stepDeg * DEG).map((w, k) => w * cosE[perQuarter + k]),
   };
   cache.set(stepDeg, grid);
   return grid;
