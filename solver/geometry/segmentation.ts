@@ -30,7 +30,8 @@ export function autoNodes(cum: Float64Array, maxLen: number, required: number[],
     const nRun = Math.max(MIN_PER_RUN, Math.ceil(runLen / maxLen - 1e-9));
     const cuts = [c0];
     for (const s of [...required].sort((x, y) => x - y)) {
-      if (s > c0 + tol && s < c1 - tol) cuts.push(s);
+      // Skip points on the run's ends and repeats (a feed and a load at one node).
+      if (s > c0 + tol && s < c1 - tol && s > cuts[cuts.length - 1] + tol) cuts.push(s);
     }
     cuts.push(c1);
     for (let i = 1; i < cuts.length; i++) {
