@@ -107,6 +107,8 @@ export interface BandAnalysis {
   swrAtEdges: [number, number];
   /** Width of the SWR ≤ 2 stretch around the minimum, within the swept band (0 if never below 2). */
   bandwidth2to1MHz: number;
+  /** SWR ≤ 2 across the whole band: the true 2:1 bandwidth is then wider than `bandwidth2to1MHz`. */
+  bandwidthCoversBand: boolean;
   /** Feed impedance at the band centre. */
   feedImpedance: ComplexPair;
   peakGainDbi: number;

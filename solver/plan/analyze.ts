@@ -1,0 +1,172 @@
+import { findResonances } from "../analysis/resonance";
+import { prepareModel } from "../index";
+import type { FrequencyResult } from "../model/types";
+import type { BandAnalysis, PlanAnalysis, PlanWarning, PowerSplit, SweepPoint } from "./analysis-types";
+import { type Band, bandCentre, bandEdges } from "./bands";
+import { activeRun, compilePlan } from "./compile";
+import { idealDipole } from "./ideal-dipole";
+import { type Plan, parsePlan } from "./schema";
+import { mapSolverWarnings } from "./warnings";
+import { meanHeight } from "./yard-geometry";
+
+/**
+ * A plan, band by band: an impedance sweep across each band, resonances, SWR figures, the pattern at the
+ * band centre, the power split, and the comparison with the ideal straight dipole.
+ *
+ * One mesh serves every band (segmented for the highest frequency swept), so a drag re-solves but
+ * never re-meshes per band. Sweep points solve impedance only; the pattern is computed at the band
+ * centre, where the headline figures are read.
+ */
+
+export interface AnalyzeOptions {
+  /** Live dragging: 5 sweep points per band and a 6° pattern grid instead of 21 points and 2°. */
+  quick?: boolean;
+}
+
+const FULL_POINTS = 21;
+const QUICK_POINTS = 5;
+const FULL_STEP = 2;
+const QUICK_STEP = 6;
+
+function linspace(a: number, b: number, n: number): number[] {
+  return Array.from({ length: n }, (_, i) => a + ((b - a) * i) / (n - 1));
+}
+
+/** Width of the SWR ≤ 2 stretch that holds the minimum, interpolating the crossings linearly. */
+export function bandwidth2to1(sweep: SweepPoint[]): { mhz: number; coversBand: boolean } {
+  let k = 0;
+  for (let i = 1; i < sweep.length; i++) if (sweep[i].swr < sweep[k].swr) k = i;
+  if (!(sweep[k].swr <= 2)) return { mhz: 0, coversBand: false };
+  const cross = (i: number, j: number) => {
+    const a = sweep[i];
+    const b = sweep[j];
+    return a.mhz + ((2 - a.swr) * (b.mhz - a.mhz)) / (b.swr - a.swr);
+  };
+  let lo = sweep[0].mhz;
+  let hi = sweep[sweep.length - 1].mhz;
+  let coversBand = true;
+  for (let i = k; i > 0; i--) {
+    if (sweep[i - 1].swr > 2) {
+      lo = cross(i, i - 1);
+      coversBand = false;
+      break;
+    }
+  }
+  for (let i = k; i < sweep.length - 1; i++) {
+    if (sweep[i + 1].swr > 2) {
+      hi = cross(i, i + 1);
+      coversBand = false;
+      break;
+    }
+  }
+  return { mhz: hi - lo, coversBand };
+}
+
+/** Gain of an elevation cut at an angle, linear interpolation in dB. */
+export function cutGainAt(cut: { anglesDeg: number[]; gainDbi: number[] } | undefined, deg: number): number {
+  if (!cut || cut.anglesDeg.length === 0) return Number.NaN;
+  const a = cut.anglesDeg;
+  const g = cut.gainDbi;
+  if (deg <= a[0]) return g[0];
+  for (let i = 1; i < a.length; i++) {
+    if (deg <= a[i]) return g[i - 1] + ((g[i] - g[i - 1]) * (deg - a[i - 1])) / (a[i] - a[i - 1]);
+  }
+  return g[g.length - 1];
+}
+
+export function powerSplit(r: FrequencyResult): PowerSplit {
+  const acc = r.power.accepted;
+  const radiated = r.power.radiated / acc;
+  const wireLoss = r.power.wireLoss / acc;
+  const loadLoss = r.power.loadLoss / acc;
+  // Over ground the space wave is all the far field sees; what is neither radiated nor lost in wires
+  // and loads went into the ground (soil and the ground connection). Over perfect ground this is ~0.
+  return { radiated, wireLoss, loadLoss, groundLoss: 1 - radiated - wireLoss - loadLoss };
+}
+
+export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnalysis {
+  const plan = parsePlan(input);
+  const quick = options.quick ?? false;
+  const nPoints = quick ? QUICK_POINTS : FULL_POINTS;
+  const step = quick ? QUICK_STEP : FULL_STEP;
+  const bands: Band[] = plan.bands.map((b) => bandEdges(b, plan.ituRegion));
+  const sweeps = bands.map((b) => linspace(b.lowMHz, b.highMHz, nPoints));
+  const compiled = compilePlan(plan, { frequenciesMHz: sweeps.flat() });
+  const prepared = prepareModel(compiled.model, { patternStepDeg: 0 });
+  const run = activeRun(plan);
+  const runWires = compiled.model.wires.filter((w) => compiled.wireElement[w.id]?.elementId === run.id);
+  const height = plan.analysis?.referenceHeight ?? meanHeight(runWires.map((w) => w.points));
+  const radius = runWires[0].radius;
+  const warnings: PlanWarning[] = [...compiled.warnings, ...mapSolverWarnings(prepared.warnings, compiled)];
+
+  const results: BandAnalysis[] = bands.map((band, bi) => {
+    const sweepResults = sweeps[bi].map((mhz) => prepared.solveAt(mhz * 1e6, { patternStepDeg: 0 }));
+    const sweep: SweepPoint[] = sweepResults.map((r) => ({ mhz: r.mhz, impedance: r.impedance, swr: r.swr }));
+    const centreMHz = bandCentre(band);
+    const centre = prepared.solveAt(centreMHz * 1e6, { patternStepDeg: step });
+    const resonancesMHz = findResonances(
+      sweep.map((p) => p.mhz),
+      sweep.map((p) => p.impedance[1]),
+    ).map((r) => r.mhz);
+    let best = sweep[0];
+    for (const p of sweep) if (p.swr < best.swr) best = p;
+    const bw = bandwidth2to1(sweep);
+    const ideal = idealDipole({
+      centreMHz,
+      heightM: height,
+      radius,
+      material: run.material,
+      ground: compiled.model.ground,
+      patternStepDeg: step,
+    });
+    const idealAtTakeoff = cutGainAt(ideal.elevationCut, centre.peakElevationDeg);
+    const north = plan.lot.northDeg;
+    return {
+      name: band.name,
+      lowMHz: band.lowMHz,
+      highMHz: band.highMHz,
+      centreMHz,
+      sweep,
+      resonancesMHz,
+      swrMin: best.swr,
+      swrMinMHz: best.mhz,
+      swrAtEdges: [sweep[0].swr, sweep[sweep.length - 1].swr],
+      bandwidth2to1MHz: bw.mhz,
+      bandwidthCoversBand: bw.coversBand,
+      feedImpedance: centre.impedance,
+      peakGainDbi: centre.peakGainDbi,
+      takeoffDeg: centre.peakElevationDeg,
+      // Solver bearings are clockwise from the plan's +y; true north sits northDeg clockwise from +y.
+      bearingDeg: (((centre.peakBearingDeg - north) % 360) + 360) % 360,
+      efficiency: centre.efficiency,
+      power: powerSplit(centre),
+      ideal: {
+        heightM: height,
+        lengthM: ideal.lengthM,
+        resonanceMHz: ideal.resonanceMHz,
+        peakGainDbi: ideal.peakGainDbi,
+        takeoffDeg: ideal.takeoffDeg,
+        gainAtPlanTakeoffDbi: idealAtTakeoff,
+        efficiency: ideal.efficiency,
+      },
+      vsIdealDipoleDb: centre.peakGainDbi - ideal.peakGainDbi,
+      vsIdealAtTakeoffDb: centre.peakGainDbi - idealAtTakeoff,
+      centre,
+    };
+  });
+
+  return {
+    quick,
+    activeRunId: run.id,
+    referenceOhms: compiled.referenceOhms,
+    bands: results,
+    warnings,
+    compiled,
+    mesh: prepared.mesh,
+    unknowns: prepared.unknowns,
+    segments: prepared.segments,
+    highVoltagePoints: results.flatMap((b) =>
+      compiled.freeEnds.map((e) => ({ elementId: e.elementId, wire: e.wire, point: e.point, band: b.name })),
+    ),
+  };
+}
