@@ -14,6 +14,8 @@
  * chunk (KCHUNK rows of U) stays in L2 while all rows below stream past it.
  */
 
+import { type SimdKernel, simdKernel } from "./lu-simd";
+
 /** Panels this narrow are factored column by column (the recursion's base case). */
 const BASE_COLUMNS = 8;
 /** Pivot rows per pass of the rank-k update: KCHUNK·n·16 bytes of U should stay in L2 (~512 KiB here). */
@@ -22,11 +24,43 @@ const KCHUNK = 64;
 const ROWS = 4;
 const PIVOTS = 2;
 
+/** Below this size the copy into WebAssembly memory is not worth it. */
+const SIMD_MIN_N = 24;
+
+/**
+ * The WebAssembly kernel in use during the current factorisation (null: the JS kernel), and the byte
+ * offset of the imaginary array in its memory (the real one starts at 0). Module state rather than
+ * parameters so the hot JS functions keep small, monomorphic signatures; set and cleared by luFactor.
+ */
+let wasmKernel: SimdKernel["kernel4x2"] | null = null;
+let wasmImOffset = 0;
+
 /** Factor A in place. Throws an Error naming the column when A is singular (to working precision). */
 export function luFactor(n: number, re: Float64Array, im: Float64Array, piv: Int32Array): void {
   checkSizes("luFactor", n, re, im, piv);
   const tiny = singularThreshold(n, re, im);
-  factorColumns(n, re, im, piv, 0, n, tiny);
+  const simd = n >= SIMD_MIN_N ? simdKernel() : null;
+  if (simd === null) {
+    factorColumns(n, re, im, piv, 0, n, tiny);
+    return;
+  }
+  // Work on a copy in the kernel's memory: the JS parts of the algorithm see it through typed-array views.
+  const nn = n * n;
+  const need = Math.ceil((16 * nn) / 65536) - simd.memory.buffer.byteLength / 65536;
+  if (need > 0) simd.memory.grow(need);
+  const wr = new Float64Array(simd.memory.buffer, 0, nn);
+  const wi = new Float64Array(simd.memory.buffer, 8 * nn, nn);
+  wr.set(re.subarray(0, nn));
+  wi.set(im.subarray(0, nn));
+  wasmKernel = simd.kernel4x2;
+  wasmImOffset = 8 * nn;
+  try {
+    factorColumns(n, wr, wi, piv, 0, n, tiny);
+  } finally {
+    wasmKernel = null;
+    re.set(wr);
+    im.set(wi);
+  }
 }
 
 /** Recursive LU of the column panel [c0, c1) over rows c0..n−1; row swaps span the whole matrix. */
@@ -126,9 +160,19 @@ function rankUpdate(
   for (let kc = k0; kc < k1; kc += KCHUNK) {
     const kcEnd = Math.min(k1, kc + KCHUNK);
     let i = i0;
+    const wk = wasmKernel;
+    // The SIMD kernel takes an even number of columns; a last odd column goes through the JS kernel.
+    const jEven = j0 + ((j1 - j0) & ~1);
     for (; i + ROWS <= i1; i += ROWS) {
       let k = kc;
-      for (; k + PIVOTS <= kcEnd; k += PIVOTS) kernel4x2(re, im, n, i, k, j0, j1);
+      if (wk !== null) {
+        for (; k + PIVOTS <= kcEnd; k += PIVOTS) {
+          wk(0, wasmImOffset, n, i, k, j0, jEven);
+          if (jEven < j1) kernel4x2(re, im, n, i, k, jEven, j1);
+        }
+      } else {
+        for (; k + PIVOTS <= kcEnd; k += PIVOTS) kernel4x2(re, im, n, i, k, j0, j1);
+      }
       for (; k < kcEnd; k++) kernel4x1(re, im, n, i, k, j0, j1);
     }
     for (; i < i1; i++) {

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { luFactor, luSolve } from "../../../solver/mom/lu";
+import { setSimdEnabled, simdKernel } from "../../../solver/mom/lu-simd";
 import { naiveSolve, randomSystem, relResidual } from "./reference";
 
 /** Factor a copy of A, solve, and return x (A and b untouched). */
@@ -127,5 +128,55 @@ describe("complex LU with partial pivoting", () => {
       }),
       { numRuns: 200 },
     );
+  });
+
+  // Node 20 has WebAssembly SIMD; if this fails the fast path silently fell back to JS.
+  it("has the WebAssembly SIMD kernel available in Node", () => {
+    expect(simdKernel()).not.toBeNull();
+  });
+
+  it("gives the same factors with the SIMD kernel and with the pure-JS fallback", () => {
+    const n = 67; // odd: exercises the SIMD kernel's odd-column tail
+    const s = randomSystem(n, 4242, { diagonalShift: 0 });
+    const run = () => {
+      const re = s.aRe.slice();
+      const im = s.aIm.slice();
+      const piv = new Int32Array(n);
+      luFactor(n, re, im, piv);
+      return { re, im, piv };
+    };
+    const fast = run();
+    setSimdEnabled(false);
+    let slow: ReturnType<typeof run>;
+    try {
+      slow = run();
+    } finally {
+      setSimdEnabled(true);
+    }
+    expect(Array.from(fast.piv)).toEqual(Array.from(slow.piv));
+    let diff = 0;
+    let scale = 0;
+    for (let i = 0; i < n * n; i++) {
+      diff = Math.max(diff, Math.abs(fast.re[i] - slow.re[i]), Math.abs(fast.im[i] - slow.im[i]));
+      scale = Math.max(scale, Math.abs(slow.re[i]), Math.abs(slow.im[i]));
+    }
+    // Same operations in a different association order: agreement to rounding, scaled by the entries.
+    expect(diff / scale).toBeLessThan(1e-12);
+  });
+
+  it("property: the pure-JS fallback also solves random systems of sizes 1..40", () => {
+    setSimdEnabled(false);
+    try {
+      fc.assert(
+        fc.property(fc.integer({ min: 1, max: 40 }), fc.integer({ min: 1, max: 2 ** 30 }), (n, seed) => {
+          const s = randomSystem(n, seed, { symmetric: true });
+          const { xRe, xIm } = solveWithLu(n, s.aRe, s.aIm, s.bRe, s.bIm);
+          return relResidual(n, s.aRe, s.aIm, xRe, xIm, s.bRe, s.bIm) < 1e-10;
+        }),
+        { numRuns: 100 },
+      );
+    } finally {
+      setSimdEnabled(true);
+    }
   });
 });
