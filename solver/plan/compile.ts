@@ -290,10 +290,8 @@ function mastWires(
   let connection: GroundConnection | undefined;
   if (mast.base.kind === "grounded") {
     const tie = mast.base.tie;
-    if (tie.kind === "radials" && !perfect) {
-      base = tie.height ?? DEFAULT_RADIAL_HEIGHT;
-      radialWires(mast.id, [x, y, base], tie, wires, parts);
-    } else connection = tie.kind === "radials" ? "ideal" : tieConnection(tie);
+    if (tie.kind === "radials" && !perfect) base = tie.height ?? DEFAULT_RADIAL_HEIGHT;
+    else connection = tie.kind === "radials" ? "ideal" : tieConnection(tie);
   }
   const cuts = [...new Set(bondHeights)]
     .filter((h) => h > base + 1e-6 && h < mast.height - 1e-6)
@@ -313,6 +311,10 @@ function mastWires(
     if (k === 1 && connection) w.groundConnection = connection;
     wires.push(w);
     parts.push({ wire: id, fromM: 0, toM: levels[k] - levels[k - 1], elementId: mast.id, kind: "mast" });
+  }
+  // The radials join the mast's base point, which is the hub.
+  if (mast.base.kind === "grounded" && mast.base.tie.kind === "radials" && !perfect) {
+    radialWires(mast.id, [x, y, base], mast.base.tie, wires, parts);
   }
 }
 
