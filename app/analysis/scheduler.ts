@@ -54,12 +54,11 @@ export class LatestWinsScheduler<Req, Res> {
     if (this.disposed) return;
     if (revision < this.latestRevision) return;
     this.latestRevision = revision;
-    const quickAlreadyCovered = this.running?.revision === revision && this.running.kind === "quick";
-    this.pendingQuick =
-      quickAlreadyCovered || this.deliveredRank >= rank(revision, "quick")
-        ? null
-        : { revision, kind: "quick", request };
-    this.pendingFull = options.interactive ? null : { revision, kind: "full", request };
+    const covered = (kind: PassKind) =>
+      (this.running?.revision === revision && this.running.kind === kind) ||
+      this.deliveredRank >= rank(revision, kind);
+    this.pendingQuick = covered("quick") ? null : { revision, kind: "quick", request };
+    this.pendingFull = options.interactive || covered("full") ? null : { revision, kind: "full", request };
     this.pump();
   }
 

@@ -463,4 +463,5 @@ export function runLength(plan: Plan, runId: string): number | null {
   return r ? (sketchRun(plan, r)?.length ?? null) : null;
 }
 
+export { supportCentre as centreOf } from "./elements";
 export { allIds };

@@ -138,3 +138,17 @@ describe("latest-wins analysis scheduling", () => {
     }
   });
 });
+
+describe("latest-wins scheduling: no repeated work", () => {
+  it("does not repeat a full pass already delivered for the same revision (a click that moved nothing)", async () => {
+    const { worker, scheduler } = setup();
+    scheduler.request(1, "plan@1", { interactive: false });
+    worker.calls[0].resolve("q");
+    await flush();
+    worker.calls[1].resolve("f");
+    await flush();
+    scheduler.request(1, "plan@1", { interactive: false });
+    await flush();
+    expect(worker.calls).toHaveLength(2);
+  });
+});

@@ -1,0 +1,295 @@
+import { useState } from "react";
+import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
+import { findElement } from "../plan/elements";
+import { freshness } from "../store/analysis-slice";
+import { useApp, useAppStore } from "../store/react";
+import { formatDb, formatLength, formatMHz } from "../units";
+import { PolarPlot } from "./charts/PolarPlot";
+import { SwrChart } from "./charts/SwrChart";
+
+// A split that is zero to rounding shows as 0.0 %, not −0.0 %.
+const pct = (x: number) => `${(Math.abs(x) < 5e-4 ? 0 : x * 100).toFixed(1)} %`;
+const ohms = ([r, x]: [number, number]) =>
+  `${r.toFixed(1)} ${x < 0 ? "−" : "+"} j${Math.abs(x).toFixed(1)} Ω`;
+
+function Status() {
+  const store = useAppStore();
+  const state = useApp((s) => freshness(s));
+  const running = useApp((s) => s.running);
+  const failure = useApp((s) => s.failure);
+  const result = useApp((s) => s.result);
+  const plan = useApp((s) => s.plan);
+  if (state === "failed" && failure) {
+    const f = failure.failure;
+    const target = findElement(plan, f.elementId);
+    return (
+      <div className="status status-error" role="alert" data-testid="analysis-status" data-state="failed">
+        <strong>This plan can’t be analysed.</strong> {f.message}
+        {target && (
+          <button type="button" className="link" onClick={() => store.getState().select(target.id)}>
+            Show the element
+          </button>
+        )}
+      </div>
+    );
+  }
+  const busy = running ? (running.kind === "quick" ? "quick pass running…" : "full band sweep running…") : "";
+  const text =
+    state === "none"
+      ? "Computing the first answer…"
+      : state === "stale"
+        ? "Results are for an earlier version of the plan."
+        : state === "quick"
+          ? "Quick pass (fewer frequencies, coarse pattern)."
+          : `Up to date: full band sweep${result ? `, ${result.analysis.unknowns} unknowns, ${result.elapsedMs.toFixed(0)} ms` : ""}.`;
+  return (
+    <div
+      className={`status status-${state}`}
+      data-testid="analysis-status"
+      data-state={state}
+      aria-live="polite"
+    >
+      {text} {busy && <span className="busy">{busy}</span>}
+    </div>
+  );
+}
+
+function Figure({
+  label,
+  value,
+  testId,
+  note,
+}: {
+  label: string;
+  value: string;
+  testId?: string;
+  note?: string;
+}) {
+  return (
+    <div className="figure">
+      <div className="figure-label">{label}</div>
+      <div className="figure-value" data-testid={testId}>
+        {value}
+      </div>
+      {note && <div className="figure-note">{note}</div>}
+    </div>
+  );
+}
+
+function PowerBar({ band }: { band: BandAnalysis }) {
+  const p = band.power;
+  const parts = [
+    { k: "radiated", v: p.radiated, c: "var(--ok)" },
+    { k: "wire loss", v: p.wireLoss, c: "var(--copper)" },
+    { k: "load loss", v: p.loadLoss, c: "var(--amber)" },
+    { k: "ground loss", v: p.groundLoss, c: "var(--earth)" },
+  ];
+  return (
+    <figure className="powerbar" aria-label="Where the power goes">
+      <div className="powerbar-track">
+        {parts.map((x) => (
+          <span
+            key={x.k}
+            style={{ width: `${Math.max(0, x.v) * 100}%`, background: x.c }}
+            title={`${x.k}: ${pct(x.v)}`}
+          />
+        ))}
+      </div>
+      <ul className="powerbar-legend">
+        {parts.map((x) => (
+          <li key={x.k}>
+            <i style={{ background: x.c }} /> {x.k} {pct(x.v)}
+          </li>
+        ))}
+      </ul>
+    </figure>
+  );
+}
+
+function resonanceVerdict(band: BandAnalysis): { text: string; tone: string } {
+  const inBand = band.resonancesMHz.filter((f) => f >= band.lowMHz && f <= band.highMHz);
+  if (inBand.length) return { text: "resonant in the band", tone: "ok" };
+  if (band.resonancesMHz.length === 0) {
+    // No zero crossing in the sweep: the sign of the reactance says which way to trim.
+    const x = band.feedImpedance[1];
+    return {
+      text:
+        x > 0
+          ? "no resonance in the sweep: too long (shorten)"
+          : "no resonance in the sweep: too short (lengthen)",
+      tone: "warn",
+    };
+  }
+  const f = band.resonancesMHz[0];
+  return {
+    text: f < band.lowMHz ? "resonates below the band: shorten" : "resonates above the band: lengthen",
+    tone: "warn",
+  };
+}
+
+function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAnalysis }) {
+  const plan = useApp((s) => s.plan);
+  const res = band.resonancesMHz.length
+    ? band.resonancesMHz.reduce((a, b) =>
+        Math.abs(b - band.centreMHz) < Math.abs(a - band.centreMHz) ? b : a,
+      )
+    : null;
+  const verdict = resonanceVerdict(band);
+  const cutEl = band.centre.elevationCut;
+  const cutAz = band.centre.azimuthCut;
+  return (
+    <>
+      <div className="headline" data-testid="vs-ideal">
+        <div className="headline-value">{formatDb(band.vsIdealDipoleDb)}</div>
+        <div className="headline-label">
+          peak gain against an ideal straight dipole
+          <span className="muted">
+            {" "}
+            ({formatLength(band.ideal.lengthM, plan.units)} long at{" "}
+            {formatLength(band.ideal.heightM, plan.units)}, same ground; at this plan’s take-off angle{" "}
+            {formatDb(band.vsIdealAtTakeoffDb)})
+          </span>
+        </div>
+      </div>
+      <div className="figures">
+        <Figure
+          label="Resonance"
+          value={res === null ? "none in sweep" : formatMHz(res)}
+          testId="resonance"
+          note={verdict.text}
+        />
+        <Figure
+          label="Best SWR"
+          value={`${band.swrMin.toFixed(2)} : 1`}
+          testId="swr-min"
+          note={`at ${formatMHz(band.swrMinMHz)}`}
+        />
+        <Figure
+          label="SWR at band edges"
+          value={`${band.swrAtEdges[0].toFixed(2)} / ${band.swrAtEdges[1].toFixed(2)}`}
+          note={`${band.lowMHz.toFixed(3)} / ${band.highMHz.toFixed(3)} MHz`}
+        />
+        <Figure
+          label="2:1 bandwidth"
+          value={`${band.bandwidthCoversBand ? "≥ " : ""}${(band.bandwidth2to1MHz * 1000).toFixed(0)} kHz`}
+          testId="bandwidth"
+          note={band.bandwidthCoversBand ? "SWR under 2 across the whole band" : undefined}
+        />
+        <Figure
+          label="Feed impedance"
+          value={ohms(band.feedImpedance)}
+          note={`at ${formatMHz(band.centreMHz)}, SWR against ${analysis.referenceOhms.toFixed(0)} Ω`}
+        />
+        <Figure
+          label="Peak gain"
+          value={`${band.peakGainDbi.toFixed(2)} dBi`}
+          testId="peak-gain"
+          note={`take-off ${band.takeoffDeg.toFixed(0)}°, bearing ${band.bearingDeg.toFixed(0)}° true`}
+        />
+      </div>
+      <h3>SWR across {band.name}</h3>
+      <SwrChart points={band.sweep} bandLowMHz={band.lowMHz} bandHighMHz={band.highMHz} resonanceMHz={res} />
+      <h3>Efficiency {pct(band.efficiency)}</h3>
+      <PowerBar band={band} />
+      <h3>Pattern at {formatMHz(band.centreMHz)}</h3>
+      <div className="polars">
+        {cutEl && (
+          <PolarPlot
+            kind="elevation"
+            title="Elevation, through the peak"
+            anglesDeg={cutEl.anglesDeg}
+            gainDbi={cutEl.gainDbi}
+            markDeg={band.takeoffDeg}
+          />
+        )}
+        {cutAz && (
+          <PolarPlot
+            kind="azimuth"
+            title={`Azimuth at ${band.takeoffDeg.toFixed(0)}°, true north up`}
+            anglesDeg={cutAz.anglesDeg.map((a) => a - plan.lot.northDeg)}
+            gainDbi={cutAz.gainDbi}
+            markDeg={band.bearingDeg}
+          />
+        )}
+      </div>
+    </>
+  );
+}
+
+function Warnings({ analysis }: { analysis: PlanAnalysis }) {
+  const store = useAppStore();
+  if (analysis.warnings.length === 0) return <p className="muted">No warnings.</p>;
+  return (
+    <ul className="warnings" data-testid="warnings">
+      {analysis.warnings.map((w) => (
+        <li key={`${w.code}:${w.elementId ?? ""}:${w.message}`}>
+          <button
+            type="button"
+            className="warning"
+            disabled={!w.elementId}
+            onClick={() => w.elementId && store.getState().select(w.elementId)}
+            title={w.elementId ? "Select the element" : undefined}
+          >
+            <span className="warning-code">{w.code}</span> {w.message}
+          </button>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function Cautions({ analysis }: { analysis: PlanAnalysis | null }) {
+  const n = analysis?.highVoltagePoints.length ?? 0;
+  return (
+    <aside className="cautions" aria-label="Safety">
+      <h3>Safety</h3>
+      <p>
+        <strong>High RF voltage at wire ends.</strong>{" "}
+        {n > 0 ? `The ${n} marked point${n > 1 ? "s" : ""} (⚡) ` : "Free wire ends "}
+        carry the highest voltage when you transmit: keep them out of reach, and keep people and pets away
+        from the antenna while on the air.
+      </p>
+      <p>
+        Keep well clear of power lines when putting wire up, and take care climbing. Defer to your local codes
+        and licensed practice, and do an RF exposure evaluation for your power and station before you operate.
+      </p>
+    </aside>
+  );
+}
+
+/** The answers, at a glance: status, headline, figures, charts, warnings, safety. */
+export function Results() {
+  const result = useApp((s) => s.result);
+  const [bandIndex, setBandIndex] = useState(0);
+  const analysis = result?.analysis ?? null;
+  const band = analysis?.bands[Math.min(bandIndex, analysis.bands.length - 1)];
+  return (
+    <section className="panel results" aria-label="Results" data-testid="results">
+      <h2>What the solver says</h2>
+      <Status />
+      {analysis && analysis.bands.length > 1 && (
+        <div className="tabs" role="tablist">
+          {analysis.bands.map((b, i) => (
+            <button
+              key={b.name}
+              type="button"
+              role="tab"
+              aria-selected={i === bandIndex}
+              onClick={() => setBandIndex(i)}
+            >
+              {b.name}
+            </button>
+          ))}
+        </div>
+      )}
+      {analysis && band && <BandResults analysis={analysis} band={band} />}
+      {analysis && (
+        <>
+          <h3>Warnings</h3>
+          <Warnings analysis={analysis} />
+        </>
+      )}
+      <Cautions analysis={analysis} />
+    </section>
+  );
+}

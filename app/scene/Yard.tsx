@@ -1,0 +1,92 @@
+import { Canvas, type ThreeEvent } from "@react-three/fiber";
+import * as THREE from "three";
+import { sketchRun } from "../plan/geometry";
+import { freshness } from "../store/analysis-slice";
+import { useApp, useAppStore } from "../store/react";
+import { pickGround } from "../tools";
+import { CameraRig } from "./CameraRig";
+import { Ground, lotBounds } from "./Ground";
+import { Hazards } from "./Hazards";
+import { palette } from "./palette";
+import { ResultsOverlay } from "./ResultsOverlay";
+import { Supports } from "./Supports";
+import { Wires } from "./Wires";
+
+// The plan frame is z-up (x east, y north); draw in it directly so no coordinate ever needs swapping.
+THREE.Object3D.DEFAULT_UP.set(0, 0, 1);
+
+function Contents() {
+  const store = useAppStore();
+  const plan = useApp((s) => s.plan);
+  const result = useApp((s) => s.result);
+  const stale = useApp((s) => freshness(s) === "stale" || freshness(s) === "failed");
+  const showCurrents = useApp((s) => s.showCurrents);
+  const showLobe = useApp((s) => s.showLobe);
+  const b = lotBounds(plan.lot.outline);
+  const onGround = (e: ThreeEvent<PointerEvent>) => {
+    if (e.button !== 0) return;
+    // Let orbiting start on empty ground; only a tool turns a ground click into an edit.
+    const tool = store.getState().tool.kind;
+    if (tool === "select") {
+      if (e.delta < 2) store.getState().select(null);
+      return;
+    }
+    e.stopPropagation();
+    pickGround(store, [e.point.x, e.point.y], e.nativeEvent.shiftKey);
+  };
+  const band = result?.analysis.bands[0];
+  const active =
+    plan.wireRuns.find((r) => r.id === result?.analysis.activeRunId) ?? plan.wireRuns.find((r) => r.feed);
+  const feed = active ? sketchRun(plan, active)?.feedPoint : null;
+  return (
+    <>
+      <color attach="background" args={[palette.sky]} />
+      <hemisphereLight args={["#ffffff", "#8a9a7a", 1.6]} />
+      <directionalLight position={[-20, -30, 40]} intensity={1.4} />
+      <CameraRig centre={[b.cx, b.cy]} size={b.size} />
+      <Ground plan={plan} onGroundPointer={onGround} />
+      <Hazards plan={plan} />
+      <Supports plan={plan} />
+      <Wires plan={plan} />
+      {result && band && (
+        <group>
+          <ResultsOverlay
+            analysis={result.analysis}
+            band={band}
+            stale={stale}
+            showCurrents={showCurrents}
+            showLobe={false}
+          />
+          {showLobe && feed && (
+            <group position={[feed[0], feed[1], 0]}>
+              <ResultsOverlay
+                analysis={{ ...result.analysis, highVoltagePoints: [] }}
+                band={band}
+                stale={stale}
+                showCurrents={false}
+                showLobe
+              />
+            </group>
+          )}
+        </group>
+      )}
+    </>
+  );
+}
+
+/** The 3D yard. Renders on demand only: nothing is drawn while nothing changes. */
+export function Yard() {
+  return (
+    <div className="yard" data-testid="yard">
+      <Canvas
+        frameloop="demand"
+        dpr={[1, 2]}
+        camera={{ fov: 45, near: 0.1, far: 2000, up: [0, 0, 1], position: [-20, -40, 25] }}
+        gl={{ preserveDrawingBuffer: true, antialias: true }}
+        onPointerMissed={() => undefined}
+      >
+        <Contents />
+      </Canvas>
+    </div>
+  );
+}
