@@ -103,7 +103,7 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
     const sweepResults = sweeps[bi].map((mhz) => prepared.solveAt(mhz * 1e6, { patternStepDeg: 0 }));
     const sweep: SweepPoint[] = sweepResults.map((r) => ({ mhz: r.mhz, impedance: r.impedance, swr: r.swr }));
     const centreMHz = bandCentre(band);
-    const centre = prepared.solveAt(centreMHz * 1e6, { patternStepDeg: step });
+    const centre = prepared.solveAt(centreMHz * 1e6, { patternStepDeg: step, keepPattern: true }); // the app draws the 3D lobe
     const resonancesMHz = findResonances(
       sweep.map((p) => p.mhz),
       sweep.map((p) => p.impedance[1]),
