@@ -38,13 +38,26 @@ let wasmImOffset = 0;
 /** Factor A in place. Throws an Error naming the column when A is singular (to working precision). */
 export function luFactor(n: number, re: Float64Array, im: Float64Array, piv: Int32Array): void {
   checkSizes("luFactor", n, re, im, piv);
-  const tiny = singularThreshold(n, re, im);
+  const tiny = singularThreshold("luFactor", n, re, im, false);
+  onFastestArrays(n, re, im, (r, i) => factorColumns(n, r, i, piv, 0, n, tiny));
+}
+
+/**
+ * Run `work` on the matrix where the fastest kernel can reach it: in WebAssembly memory (copied in and
+ * back out, also when work throws) when SIMD is available and n is big enough, else in place.
+ */
+function onFastestArrays(
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  work: (re: Float64Array, im: Float64Array) => void,
+): void {
   const simd = n >= SIMD_MIN_N ? simdKernel() : null;
   if (simd === null) {
-    factorColumns(n, re, im, piv, 0, n, tiny);
+    work(re, im);
     return;
   }
-  // Work on a copy in the kernel's memory: the JS parts of the algorithm see it through typed-array views.
+  // The JS parts of the algorithm see the copy through typed-array views.
   const nn = n * n;
   const need = Math.ceil((16 * nn) / 65536) - simd.memory.buffer.byteLength / 65536;
   if (need > 0) simd.memory.grow(need);
@@ -55,7 +68,7 @@ export function luFactor(n: number, re: Float64Array, im: Float64Array, piv: Int
   wasmKernel = simd.kernel4x2;
   wasmImOffset = 8 * nn;
   try {
-    factorColumns(n, wr, wi, piv, 0, n, tiny);
+    work(wr, wi);
   } finally {
     wasmKernel = null;
     re.set(wr);
@@ -317,6 +330,112 @@ function kernel1x1(
   }
 }
 
+/** Pivot block of the LDLᵀ: its U rows (LDLT_BLOCK·n·16 bytes) stay in L2 during the Schur update. */
+const LDLT_BLOCK = 32;
+
+/**
+ * Complex-symmetric LDLᵀ (A = Aᵀ, not Hermitian — a Galerkin moment-method matrix is like this by
+ * reciprocity), without pivoting, in place. Reads only the upper triangle (j ≥ i), so a caller may fill
+ * just that. Leaves the same factors as LU without pivoting would: unit L in the strict lower triangle,
+ * U = D·Lᵀ in the upper, but with half the work (n³/6 complex multiply-adds), because only the upper
+ * triangle of each Schur complement is updated (Golub & Van Loan, Matrix Computations, 4th ed., §4.1).
+ *
+ * Without pivoting this is only safe for matrices whose pivots stay large, e.g. diagonally dominant
+ * ones; a pivot below the singularity threshold throws (use luFactor then). It is NOT backward stable
+ * for general symmetric matrices: callers must be able to check the answer or fall back.
+ */
+export function ldltFactor(n: number, re: Float64Array, im: Float64Array): void {
+  checkSizes("ldltFactor", n, re, im, null);
+  const tiny = singularThreshold("ldltFactor", n, re, im, true);
+  onFastestArrays(n, re, im, (r, i) => factorLdlt(n, r, i, tiny));
+}
+
+/** Solve A·x = b with the factors from ldltFactor; b (split re/im) is overwritten by x. */
+export function ldltSolve(
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  bRe: Float64Array,
+  bIm: Float64Array,
+): void {
+  // The factors are exactly unpivoted LU factors, so the LU substitutions apply with no interchanges.
+  if (identityPivots.length < n) {
+    identityPivots = new Int32Array(n);
+    for (let i = 0; i < n; i++) identityPivots[i] = i;
+  }
+  luSolve(n, re, im, identityPivots, bRe, bIm);
+}
+
+let identityPivots = new Int32Array(0);
+
+/**
+ * Right-looking blocked LDLᵀ on the upper triangle. Per pivot block [k0, k1):
+ *   1. factor the diagonal block (upper part; multipliers l_ik = a_ki/d_k go to the lower triangle),
+ *   2. finish rows k0..k1 to the right of the block (triangular solve with the unit L of the block),
+ *   3. write L21 = U12ᵀ·D⁻¹ into the lower triangle (the multipliers the kernel reads),
+ *   4. update the upper triangle of the trailing matrix, four rows at a time from their own diagonal.
+ * Step 4 also writes the few lower-triangle entries inside each 4-row block (columns i..i+3); those
+ * cells are overwritten with multipliers in step 3 of a later block before anything reads them.
+ */
+function factorLdlt(n: number, re: Float64Array, im: Float64Array, tiny: number): void {
+  for (let k0 = 0; k0 < n; k0 += LDLT_BLOCK) {
+    const k1 = Math.min(n, k0 + LDLT_BLOCK);
+    for (let k = k0; k < k1; k++) {
+      const rk = k * n;
+      const dr = re[rk + k];
+      const di = im[rk + k];
+      const mag = dr * dr + di * di;
+      if (!(mag > tiny) || !Number.isFinite(mag)) throw ldltPivotError(k, n, mag, tiny);
+      const inv = 1 / mag;
+      const ir = dr * inv;
+      const ii = -di * inv;
+      for (let i = k + 1; i < k1; i++) {
+        const ar = re[rk + i];
+        const ai = im[rk + i];
+        const lr = ar * ir - ai * ii;
+        const li = ar * ii + ai * ir;
+        const ri = i * n;
+        re[ri + k] = lr;
+        im[ri + k] = li;
+        for (let j = i; j < k1; j++) {
+          const ur = re[rk + j];
+          const ui = im[rk + j];
+          re[ri + j] -= lr * ur - li * ui;
+          im[ri + j] -= lr * ui + li * ur;
+        }
+      }
+    }
+    if (k1 === n) break;
+    for (let ib = k0; ib < k1; ib += ROWS) {
+      const ie = Math.min(k1, ib + ROWS);
+      rankUpdate(re, im, n, ib, ie, k0, ib, k1, n);
+      for (let i = ib + 1; i < ie; i++) rankUpdate(re, im, n, i, i + 1, ib, i, k1, n);
+    }
+    for (let k = k0; k < k1; k++) {
+      const rk = k * n;
+      const dr = re[rk + k];
+      const di = im[rk + k];
+      const inv = 1 / (dr * dr + di * di);
+      const ir = dr * inv;
+      const ii = -di * inv;
+      for (let i = k1, ik = k1 * n + k; i < n; i++, ik += n) {
+        const ar = re[rk + i];
+        const ai = im[rk + i];
+        re[ik] = ar * ir - ai * ii;
+        im[ik] = ar * ii + ai * ir;
+      }
+    }
+    for (let i = k1; i < n; i += ROWS) rankUpdate(re, im, n, i, Math.min(n, i + ROWS), k0, k1, i, n);
+  }
+}
+
+function ldltPivotError(k: number, n: number, mag: number, tiny: number): Error {
+  return new Error(
+    `ldltFactor: pivot ${k} of ${n} has modulus ${Math.sqrt(mag).toExponential(3)}, below the threshold ` +
+      `${Math.sqrt(tiny).toExponential(3)}: the matrix is singular or needs pivoting (use luFactor)`,
+  );
+}
+
 /** Solve A·x = b with the factors from luFactor; b (split re/im) is overwritten by x. */
 export function luSolve(
   n: number,
@@ -382,20 +501,26 @@ export function luSolve(
  * |pivot|² below which the matrix counts as singular: (n·ε·max|a_ij|)². A pivot that small means the
  * condition number is beyond 1/(n·ε) and the solution would be noise, so we refuse rather than return it.
  */
-function singularThreshold(n: number, re: Float64Array, im: Float64Array): number {
+function singularThreshold(
+  who: string,
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  upperOnly: boolean,
+): number {
   let maxSq = 0;
-  const nn = n * n;
-  for (let i = 0; i < nn; i++) {
-    const m = re[i] * re[i] + im[i] * im[i];
-    if (m > maxSq) maxSq = m;
-    else if (!(m <= maxSq)) {
-      // NaN fails both comparisons; report where it is rather than pivoting on garbage.
-      throw new Error(
-        `luFactor: matrix entry (${Math.floor(i / n)}, ${i % n}) is not finite (${re[i]} + ${im[i]}j)`,
-      );
+  for (let row = 0; row < n; row++) {
+    const end = (row + 1) * n;
+    for (let i = upperOnly ? row * n + row : row * n; i < end; i++) {
+      const m = re[i] * re[i] + im[i] * im[i];
+      if (m > maxSq) maxSq = m;
+      else if (!(m <= maxSq)) {
+        // NaN fails both comparisons; report where it is rather than pivoting on garbage.
+        throw new Error(`${who}: matrix entry (${row}, ${i - row * n}) is not finite (${re[i]} + ${im[i]}j)`);
+      }
     }
   }
-  if (!Number.isFinite(maxSq)) throw new Error("luFactor: matrix has an infinite or overflowing entry");
+  if (!Number.isFinite(maxSq)) throw new Error(`${who}: matrix has an infinite or overflowing entry`);
   const eps = n * Number.EPSILON;
   return maxSq * eps * eps;
 }
@@ -424,12 +549,18 @@ function swapRows(n: number, re: Float64Array, im: Float64Array, a: number, b: n
   }
 }
 
-function checkSizes(who: string, n: number, re: Float64Array, im: Float64Array, piv: Int32Array): void {
+function checkSizes(
+  who: string,
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  piv: Int32Array | null,
+): void {
   if (!Number.isInteger(n) || n < 0)
     throw new Error(`${who}: size n must be a non-negative integer, got ${n}`);
   const nn = n * n;
   if (re.length < nn || im.length < nn) {
     throw new Error(`${who}: matrix arrays hold ${Math.min(re.length, im.length)} values, need n·n = ${nn}`);
   }
-  if (piv.length < n) throw new Error(`${who}: pivot array holds ${piv.length} entries, need ${n}`);
+  if (piv && piv.length < n) throw new Error(`${who}: pivot array holds ${piv.length} entries, need ${n}`);
 }
