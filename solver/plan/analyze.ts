@@ -1,11 +1,19 @@
 import { findResonances } from "../analysis/resonance";
 import { prepareModel } from "../index";
+import { ModelError } from "../model/errors";
 import type { FrequencyResult } from "../model/types";
-import type { BandAnalysis, PlanAnalysis, PlanWarning, PowerSplit, SweepPoint } from "./analysis-types";
+import type {
+  BandAnalysis,
+  CompiledPlan,
+  PlanAnalysis,
+  PlanWarning,
+  PowerSplit,
+  SweepPoint,
+} from "./analysis-types";
 import { type Band, bandCentre, bandEdges } from "./bands";
 import { activeRun, compilePlan } from "./compile";
 import { idealDipole } from "./ideal-dipole";
-import { type Plan, parsePlan } from "./schema";
+import { type Plan, PlanError, parsePlan } from "./schema";
 import { mapSolverWarnings } from "./warnings";
 import { meanHeight } from "./yard-geometry";
 
@@ -84,6 +92,32 @@ export function powerSplit(r: FrequencyResult): PowerSplit {
   return { radiated, wireLoss, loadLoss, groundLoss: 1 - radiated - wireLoss - loadLoss };
 }
 
+/**
+ * Run a solver step; a ModelError it throws names a wire (`wires[2].points`) or the feed, which the user
+ * never wrote: re-throw it as a PlanError naming the plan element that wire came from.
+ */
+function solverStep<T>(compiled: CompiledPlan, step: () => T): T {
+  try {
+    return step();
+  } catch (e) {
+    if (!(e instanceof ModelError) || e instanceof PlanError) throw e;
+    const m = /^wires\[(\d+)\]/.exec(e.path);
+    const wire = m
+      ? compiled.model.wires[Number(m[1])]?.id
+      : e.path.startsWith("feed")
+        ? compiled.model.feed.wire
+        : undefined;
+    const ref = wire ? compiled.wireElement[wire] : undefined;
+    const what = ref ? `${ref.kind} "${ref.elementId}"` : "the plan";
+    const inner = e.message.startsWith(`${e.path}: `) ? e.message.slice(e.path.length + 2) : e.message;
+    throw new PlanError(
+      ref ? ref.elementId : "plan",
+      `${what} (as compiled, ${e.path || "model"}): ${inner}`,
+      ref?.elementId,
+    );
+  }
+}
+
 export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnalysis {
   const plan = parsePlan(input);
   const quick = options.quick ?? false;
@@ -92,7 +126,7 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
   const bands: Band[] = plan.bands.map((b) => bandEdges(b, plan.ituRegion));
   const sweeps = bands.map((b) => linspace(b.lowMHz, b.highMHz, nPoints));
   const compiled = compilePlan(plan, { frequenciesMHz: sweeps.flat() });
-  const prepared = prepareModel(compiled.model, { patternStepDeg: 0 });
+  const prepared = solverStep(compiled, () => prepareModel(compiled.model, { patternStepDeg: 0 }));
   const run = activeRun(plan);
   const runWires = compiled.model.wires.filter((w) => compiled.wireElement[w.id]?.elementId === run.id);
   const height = plan.analysis?.referenceHeight ?? meanHeight(runWires.map((w) => w.points));
@@ -100,7 +134,9 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
   const warnings: PlanWarning[] = [...compiled.warnings, ...mapSolverWarnings(prepared.warnings, compiled)];
 
   const results: BandAnalysis[] = bands.map((band, bi) => {
-    const sweepResults = sweeps[bi].map((mhz) => prepared.solveAt(mhz * 1e6, { patternStepDeg: 0 }));
+    const sweepResults = solverStep(compiled, () =>
+      sweeps[bi].map((mhz) => prepared.solveAt(mhz * 1e6, { patternStepDeg: 0 })),
+    );
     const sweep: SweepPoint[] = sweepResults.map((r) => ({ mhz: r.mhz, impedance: r.impedance, swr: r.swr }));
     const centreMHz = bandCentre(band);
     const centre = prepared.solveAt(centreMHz * 1e6, { patternStepDeg: step, keepPattern: true }); // the app draws the 3D lobe

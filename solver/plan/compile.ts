@@ -172,6 +172,24 @@ export function runGeometry(
     const a = run.anchors[i];
     if (a.kind === "support" && a.bonded) bonds.push({ mast: a.support, point: pts[i] as Vec3 });
   }
+  // A wire passing a metal mast part-way along (not bonded) rides on an insulator: on top of the mast it
+  // sits a clearance above it, lower down a clearance beside it (perpendicular to the run), so the
+  // thin-wire model never sees the two conductors touch.
+  for (let i = 1; i < n - 1; i++) {
+    const a = run.anchors[i];
+    if (a.kind !== "support" || a.bonded) continue;
+    const s = plan.supports.find((x) => x.id === a.support);
+    if (!s || !isConductiveMast(s)) continue;
+    const clear = s.diameter / 2 + MIN_MAST_CLEARANCE;
+    if (a.height >= s.height - 1e-6) {
+      pts[i] = [pts[i][0], pts[i][1], s.height + clear];
+      continue;
+    }
+    const dx = pts[i + 1][0] - pts[i - 1][0];
+    const dy = pts[i + 1][1] - pts[i - 1][1];
+    const h = Math.hypot(dx, dy) || 1;
+    pts[i] = [pts[i][0] - (dy / h) * clear, pts[i][1] + (dx / h) * clear, pts[i][2]];
+  }
   if (run.groundStart) {
     if (pts[0][2] > 0.5) {
       err(
