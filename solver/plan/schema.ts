@@ -106,7 +106,7 @@ export const TreeSchema = z
     name,
     position: Point2Schema,
     /** Highest point a rope can be got over, metres above ground: anchors may not be higher. */
-    height: positive("attach height (m)"),
+    height: positive("attach height (m)").describe("Highest usable attach point, metres above ground"),
     /** Overall tree height for the picture; defaults to the attach height plus a little. */
     totalHeight: positive("tree height (m)").optional(),
     trunkDiameter: positive("trunk diameter (m)").optional(),
@@ -167,7 +167,11 @@ export const BuildingSchema = z
     ridgeHeight: positive("ridge height (m)"),
     /** Direction of the ridge line, degrees clockwise from the plan's +y axis. The ridge passes through
      *  the footprint's centroid. */
-    ridgeDeg: finite("ridge direction (degrees)").default(0),
+    ridgeDeg: finite("ridge direction (degrees)")
+      .default(0)
+      .describe(
+        "Ridge direction, degrees clockwise from the plan +y axis; the ridge passes through the centroid",
+      ),
   })
   .strict();
 
@@ -235,8 +239,12 @@ export const AnchorSchema = z.discriminatedUnion(
         support: id,
         height: positive("height (m)"),
         at: Point2Schema.optional(),
-        rope: nonNegative("rope length (m)").optional(),
-        sagToNext: nonNegative("sag (m)").optional(),
+        rope: nonNegative("rope length (m)")
+          .optional()
+          .describe("End anchors: rope and insulator from the support to the wire end, metres"),
+        sagToNext: nonNegative("sag (m)")
+          .optional()
+          .describe("Mid-span sag of the span to the next anchor, metres"),
         /** Only on a conductive mast: the wire is bonded to the mast here instead of insulated from it. */
         bonded: z.boolean().optional(),
       })
@@ -249,8 +257,12 @@ export const AnchorSchema = z.discriminatedUnion(
         support: id,
         at: Point2Schema,
         above: nonNegative("height above the roof (m)").optional(),
-        rope: nonNegative("rope length (m)").optional(),
-        sagToNext: nonNegative("sag (m)").optional(),
+        rope: nonNegative("rope length (m)")
+          .optional()
+          .describe("End anchors: rope and insulator from the support to the wire end, metres"),
+        sagToNext: nonNegative("sag (m)")
+          .optional()
+          .describe("Mid-span sag of the span to the next anchor, metres"),
       })
       .strict(),
     z
@@ -259,7 +271,9 @@ export const AnchorSchema = z.discriminatedUnion(
         id,
         name,
         position: Point3Schema,
-        sagToNext: nonNegative("sag (m)").optional(),
+        sagToNext: nonNegative("sag (m)")
+          .optional()
+          .describe("Mid-span sag of the span to the next anchor, metres"),
       })
       .strict(),
   ],
@@ -305,7 +319,7 @@ export const FeedSystemSchema = z.discriminatedUnion(
       .object({
         kind: z.literal("transformer"),
         /** Impedance ratio n for an n:1 balun/unun (1, 4, 9, 49, ...). */
-        ratio: positive("transformer ratio"),
+        ratio: positive("transformer ratio").describe("Impedance ratio n of an n:1 balun or unun"),
         /** Feed line impedance (ohms); default 50. */
         lineOhms: positive("line impedance (ohms)").optional(),
       })
@@ -318,7 +332,9 @@ export const FeedSystemSchema = z.discriminatedUnion(
 export const FeedSchema = z
   .object({
     /** Fraction of the run's whole conductor length (droops included) from its start end. */
-    at: fraction("feed position (fraction of the run)"),
+    at: fraction("feed position (fraction of the run)").describe(
+      "Fraction of the run's whole conductor (droops included) from its start end",
+    ),
     system: FeedSystemSchema.default({ kind: "transformer", ratio: 1 }),
   })
   .strict();
@@ -391,7 +407,9 @@ export const LotSchema = z
   .object({
     outline: polyline(3, "lot outline"),
     /** Where true north is, degrees clockwise from the plan's +y axis (0: +y is north). */
-    northDeg: finite("north direction (degrees)").default(0),
+    northDeg: finite("north direction (degrees)")
+      .default(0)
+      .describe("Where true north is, degrees clockwise from the plan +y axis"),
   })
   .strict();
 
@@ -411,7 +429,10 @@ export const PlanSchema = z
     {
       version: z.literal(PLAN_VERSION, { error: "expected version 1" }),
       name,
-      units: z.enum(["m", "ft"], { error: 'expected "m" or "ft"' }).default("m"),
+      units: z
+        .enum(["m", "ft"], { error: 'expected "m" or "ft"' })
+        .default("m")
+        .describe("Display unit only: every length in the document is metres"),
       lot: LotSchema,
       ituRegion: z.union([z.literal(1), z.literal(2), z.literal(3)], {
         error: "expected ITU region 1, 2 or 3",
