@@ -62,10 +62,15 @@ export function portCurrent(
 }
 
 /** Impedance of a lumped R/L/C load at angular frequency ω, series or parallel. */
+/**
+ * A component given as 0 (or left out) is absent, in either arrangement: a series "farads: 0" is no
+ * capacitor rather than an open circuit, a parallel "ohms: 0" no resistor rather than a short. That is
+ * how the CLI's documented example writes a plain coil ({ ohms: 0, henries: 1e-5, farads: 0 }).
+ */
 export function loadImpedance(load: LoadInput, omega: number): [number, number] {
-  const R = load.ohms;
-  const L = load.henries;
-  const C = load.farads;
+  const R = load.ohms || undefined;
+  const L = load.henries || undefined;
+  const C = load.farads || undefined;
   if ((load.arrangement ?? "series") === "series") {
     const re = R ?? 0;
     let im = 0;

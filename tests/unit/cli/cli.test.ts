@@ -1,0 +1,121 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+
+// The command-line door: run it as a user would (through tsx), check its contract, not its physics
+// (the physics has its own checks under tests/unit/mom and tests/unit/fields).
+const dir = mkdtempSync(join(tmpdir(), "cli-"));
+const tsx = join(process.cwd(), "node_modules", ".bin", "tsx");
+
+function run(model: unknown, ...flags: string[]) {
+  const file = join(dir, `m${Math.random().toString(36).slice(2)}.json`);
+  writeFileSync(file, typeof model === "string" ? model : JSON.stringify(model));
+  const r = spawnSync(tsx, ["solver/cli.ts", file, ...flags], { encoding: "utf8" });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr, file };
+}
+
+const dipole = {
+  wires: [
+    {
+      id: "top",
+      points: [
+        [-5, 0, 10],
+        [5, 0, 10],
+      ],
+      radius: 0.001,
+      material: "copper",
+      segments: 22,
+    },
+  ],
+  feed: { wire: "top", at: 0.5 },
+  loads: [{ wire: "top", at: 0.25, ohms: 0, henries: 1e-7, farads: 0, arrangement: "series" }],
+  ground: { kind: "perfect" },
+  frequenciesMHz: [14.0, 14.175, 14.35],
+  referenceOhms: 50,
+};
+
+describe("npm run solve", () => {
+  it("prints the documented JSON shape for the documented example", () => {
+    const r = run(dipole, "--json");
+    expect(r.stderr).toBe("");
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.segments).toBe(22);
+    expect(out.results).toHaveLength(3);
+    const first = out.results[0];
+    for (const key of [
+      "mhz",
+      "impedance",
+      "swr",
+      "peakGainDbi",
+      "peakElevationDeg",
+      "peakBearingDeg",
+      "efficiency",
+    ]) {
+      expect(first).toHaveProperty(key);
+    }
+    expect(first.impedance).toHaveLength(2);
+    expect(first.currents[0].wire).toBe("top");
+    expect(first.currents[0].peakAmps).toBeGreaterThan(0);
+    expect(Array.isArray(out.resonancesMHz)).toBe(true);
+    expect(Array.isArray(out.warnings)).toBe(true);
+  });
+
+  it("prints a readable table by default", () => {
+    const r = run(dipole);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/MHz\s+R \(Ω\)\s+X \(Ω\)\s+SWR/);
+    expect(r.stdout).toContain("14.1750");
+  });
+
+  it("exits 2 with one line naming the field for a malformed model", () => {
+    const bad = {
+      ...dipole,
+      wires: [
+        dipole.wires[0],
+        {
+          id: "b",
+          points: [
+            [0, 0],
+            [1, 1, 1],
+          ],
+          radius: 0.001,
+        },
+      ],
+    };
+    const r = run(bad, "--json");
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe("");
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
+    expect(r.stderr).toContain("wires[1].points[0]: expected three numbers");
+  });
+
+  it("exits 2 for a file that is not JSON, without a stack trace", () => {
+    const r = run("{ wires: nope");
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("not valid JSON");
+    expect(r.stderr).not.toContain("    at ");
+  });
+
+  it("exits 2 for a geometric problem found after parsing (a zero-length wire)", () => {
+    const bad = {
+      ...dipole,
+      loads: [],
+      wires: [
+        {
+          id: "top",
+          points: [
+            [1, 0, 10],
+            [1, 0, 10],
+          ],
+          radius: 0.001,
+        },
+      ],
+    };
+    const r = run(bad);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/wires\[0\]/);
+  });
+});
