@@ -7,6 +7,7 @@ export function freeSpaceGround(): GroundKernel {
     connectsAtZ0: false,
     symmetric: true,
     hasPairTerms: false,
+    interpolable: true,
     beginFrequency() {},
     pairTerms() {},
     nodeImpedance() {

@@ -68,6 +68,12 @@ export interface GroundKernel {
   readonly symmetric: boolean;
   /** True when the ground adds anything to the pair interactions (free space: false, skip the calls). */
   readonly hasPairTerms: boolean;
+  /**
+   * True when the reflected terms vary with frequency like an image, e^{−jkR̃}/R̃ times slowly varying
+   * factors, so sweeps may interpolate them across a band (solver/mom/interpolate.ts). Leave it
+   * false or absent when unsure: every frequency is then filled in full.
+   */
+  readonly interpolable?: boolean;
   /** Called once per frequency, before any pairTerms (tabulate Sommerfeld integrals here). */
   beginFrequency(f: GroundFrequency): void;
   /** ADD the reflected terms of pair (p, q) into out[0..9] (layout above). */

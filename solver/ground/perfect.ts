@@ -19,6 +19,7 @@ export function perfectGround(setup: GroundSetup): GroundKernel {
     connectsAtZ0: true,
     symmetric: true,
     hasPairTerms: true,
+    interpolable: true,
     beginFrequency(f: GroundFrequency) {
       k = f.k;
     },

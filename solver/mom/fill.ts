@@ -24,6 +24,9 @@ export function makeFillScratch(): FillScratch {
   return { j: new Float64Array(8), g: new Float64Array(10), c: new Float64Array(10) };
 }
 
+/** Which terms to fill: both, only the free-space kernel, or only the ground's reflected terms. */
+export type FillParts = "all" | "free" | "ground";
+
 /** Overwrite Z (n×n row-major, split re/im) with the free-space + ground interaction matrix. */
 export function fillMatrix(
   mesh: Mesh,
@@ -32,6 +35,7 @@ export function fillMatrix(
   zr: Float64Array,
   zi: Float64Array,
   w: FillScratch,
+  parts: FillParts = "all",
 ): void {
   const n = mesh.nBasis;
   zr.fill(0, 0, n * n);
@@ -42,19 +46,23 @@ export function fillMatrix(
   const k = f.k;
   const J = w.j;
   const G = w.g;
-  const groundInLoop = ground.hasPairTerms && ground.symmetric;
-  for (let p = 0; p < nSeg; p++) {
+  const withGround = parts !== "free" && ground.hasPairTerms;
+  const groundInLoop = withGround && ground.symmetric;
+  const withFree = parts !== "ground";
+  if (!withFree && !groundInLoop) J.fill(0);
+  for (let p = 0; p < nSeg && (withFree || groundInLoop); p++) {
     if (sps[p] === sps[p + 1]) continue;
     for (let q = p; q < nSeg; q++) {
       if (sps[q] === sps[q + 1]) continue;
-      pairIntegrals(S, p, S, q, k, J);
+      if (withFree) pairIntegrals(S, p, S, q, k, J);
+      else J.fill(0);
       G.fill(0);
       if (groundInLoop) ground.pairTerms(p, q, G);
       combine(S.dir, p, q, J, G, k, f.eta, w.c);
       scatter(mesh, p, q, w.c, zr, zi, n, true);
     }
   }
-  if (ground.hasPairTerms && !ground.symmetric) {
+  if (withGround && !ground.symmetric) {
     // Ground terms that are not symmetric per pair: every ordered pair, no mirroring.
     J.fill(0);
     for (let p = 0; p < nSeg; p++) {

@@ -10,6 +10,7 @@ import { ModelError } from "../model/errors";
 import type { FrequencyResult, SegmentCurrents, WireCurrentSummary } from "../model/types";
 import { C0, ETA0 } from "./constants";
 import { fillMatrix, makeFillScratch } from "./fill";
+import { BandInterpolator } from "./interpolate";
 import { luFactor, luSolve } from "./lu";
 import {
   addConductorLoss,
@@ -33,6 +34,8 @@ export interface MomSetup {
 export interface FrequencySolveOptions {
   patternStepDeg?: number;
   keepPattern?: boolean;
+  /** Sweeps: allow band interpolation of Z (default true where the ground permits). */
+  interpolate?: boolean;
 }
 
 export interface MomSolver {
@@ -40,6 +43,8 @@ export interface MomSolver {
   /** Fill only (for tests of the matrix itself): returns views of the internal Z buffers. */
   matrixAt(frequencyHz: number): { re: Float64Array; im: Float64Array; n: number };
   solveAt(frequencyHz: number, opts?: FrequencySolveOptions): FrequencyResult;
+  /** Many frequencies (Hz), results in the same order; reuses fills across bands (interpolate.ts). */
+  solveSweep(frequenciesHz: number[], opts?: FrequencySolveOptions): FrequencyResult[];
 }
 
 export function makeMomSolver(setup: MomSetup): MomSolver {
@@ -63,6 +68,7 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
   const groundZ: ([number, number] | null)[] = groundPorts.map(() => null);
   const loadZ: [number, number][] = loadPorts.map(() => [0, 0]);
 
+  let band: BandInterpolator | null = null;
   const assemble = (frequencyHz: number) => {
     if (!(frequencyHz > 0) || !Number.isFinite(frequencyHz)) {
       throw new ModelError(
@@ -74,7 +80,11 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
     const k = omega / C0;
     const f = { frequencyHz, omega, k, eta: ETA0 };
     ground.beginFrequency(f);
-    fillMatrix(mesh, ground, f, zr, zi, scratch);
+    if (band && frequencyHz >= band.fLo * (1 - 1e-12) && frequencyHz <= band.fHi * (1 + 1e-12)) {
+      band.matrixAt(frequencyHz, zr, zi);
+    } else {
+      fillMatrix(mesh, ground, f, zr, zi, scratch);
+    }
     loadPorts.forEach((l, i) => {
       const z = loadImpedance(l.load, omega);
       if (!Number.isFinite(z[0]) || !Number.isFinite(z[1])) {
@@ -94,102 +104,149 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
     return omega;
   };
 
+  const solveAt = (frequencyHz: number, opts: FrequencySolveOptions = {}): FrequencyResult => {
+    const omega = assemble(frequencyHz);
+    try {
+      luFactor(n, zr, zi, piv);
+    } catch (e) {
+      throw new ModelError(
+        "wires",
+        `the impedance matrix is singular at ${frequencyHz / 1e6} MHz (overlapping wires or a degenerate geometry?): ${(e as Error).message}`,
+      );
+    }
+    br.fill(0);
+    bi.fill(0);
+    for (let a = 0; a < feedPort.basis.length; a++) br[feedPort.basis[a]] = feedPort.sign[a];
+    luSolve(n, zr, zi, piv, br, bi);
+    const [ir, ii] = portCurrent(feedPort, br, bi);
+    // 1 V applied: P = ½ Re(V I*) = ½ Re(I).
+    const p1 = 0.5 * ir;
+    if (!(p1 > 0)) {
+      throw new ModelError(
+        "feed",
+        `the feed accepts no power at ${frequencyHz / 1e6} MHz (numerical breakdown)`,
+      );
+    }
+    const scale = 1 / Math.sqrt(p1);
+    const den = ir * ir + ii * ii;
+    const zin: [number, number] = [ir / den, -ii / den];
+    for (let m = 0; m < n; m++) {
+      br[m] *= scale;
+      bi[m] *= scale;
+    }
+    const currents = segmentCurrents(mesh, br, bi);
+    const wireLoss = conductorLossWatts(mesh, omega, currents);
+    let loadLoss = 0;
+    loadPorts.forEach((l, i) => {
+      const [cr, ci] = portCurrent(l.pp, br, bi);
+      loadLoss += 0.5 * loadZ[i][0] * (cr * cr + ci * ci);
+    });
+    let groundLoss = 0;
+    groundPorts.forEach((g, i) => {
+      const z = groundZ[i];
+      if (!z) return;
+      const [cr, ci] = portCurrent(g.pp, br, bi);
+      groundLoss += 0.5 * z[0] * (cr * cr + ci * ci);
+    });
+    const accepted = 1;
+    const step = opts.patternStepDeg ?? 2;
+    const result: FrequencyResult = {
+      mhz: frequencyHz / 1e6,
+      impedance: zin,
+      swr: swr(zin, setup.referenceOhms),
+      peakGainDbi: Number.NaN,
+      peakElevationDeg: Number.NaN,
+      peakBearingDeg: Number.NaN,
+      directivityDbi: Number.NaN,
+      efficiency: (accepted - wireLoss - loadLoss - groundLoss) / accepted,
+      power: {
+        accepted,
+        radiated: accepted - wireLoss - loadLoss - groundLoss,
+        wireLoss,
+        loadLoss,
+        groundLoss,
+      },
+      currents: wirePeaks(mesh, currents),
+      segmentCurrents: currents,
+      feedCurrent: [ir * scale, ii * scale],
+      feedVoltage: [scale, 0],
+    };
+    if (step > 0 && setup.farField) {
+      const ff = setup.farField({
+        mesh: mesh.view,
+        currents,
+        frequencyHz,
+        ground: setup.farFieldGround,
+        acceptedWatts: accepted,
+        stepDeg: step,
+        keepPattern: opts.keepPattern ?? false,
+      });
+      result.power.radiated = ff.radiatedWatts;
+      result.efficiency = ff.radiatedWatts / accepted;
+      result.peakGainDbi = ff.peakGainDbi;
+      result.peakElevationDeg = ff.peakElevationDeg;
+      result.peakBearingDeg = ff.peakBearingDeg;
+      result.directivityDbi = ff.directivityDbi;
+      if (ff.pattern) result.pattern = ff.pattern;
+      result.elevationCut = ff.elevationCut;
+      result.azimuthCut = ff.azimuthCut;
+    }
+    return result;
+  };
+
   return {
     unknowns: n,
     matrixAt(frequencyHz) {
       assemble(frequencyHz);
       return { re: zr, im: zi, n };
     },
-    solveAt(frequencyHz, opts = {}) {
-      const omega = assemble(frequencyHz);
-      try {
-        luFactor(n, zr, zi, piv);
-      } catch (e) {
-        throw new ModelError(
-          "wires",
-          `the impedance matrix is singular at ${frequencyHz / 1e6} MHz (overlapping wires or a degenerate geometry?): ${(e as Error).message}`,
-        );
+    solveAt,
+    solveSweep(frequenciesHz, opts = {}) {
+      const out: FrequencyResult[] = new Array(frequenciesHz.length);
+      const canInterpolate = ground.interpolable === true && opts.interpolate !== false;
+      for (const group of bandGroups(frequenciesHz, canInterpolate ? BAND_RATIO : 0)) {
+        band =
+          group.length >= MIN_BAND_POINTS
+            ? new BandInterpolator(
+                mesh,
+                ground,
+                frequenciesHz[group[0]],
+                frequenciesHz[group[group.length - 1]],
+                scratch,
+                zr,
+                zi,
+              )
+            : null;
+        try {
+          for (const i of group) out[i] = solveAt(frequenciesHz[i], opts);
+        } finally {
+          band = null;
+        }
       }
-      br.fill(0);
-      bi.fill(0);
-      for (let a = 0; a < feedPort.basis.length; a++) br[feedPort.basis[a]] = feedPort.sign[a];
-      luSolve(n, zr, zi, piv, br, bi);
-      const [ir, ii] = portCurrent(feedPort, br, bi);
-      // 1 V applied: P = ½ Re(V I*) = ½ Re(I).
-      const p1 = 0.5 * ir;
-      if (!(p1 > 0)) {
-        throw new ModelError(
-          "feed",
-          `the feed accepts no power at ${frequencyHz / 1e6} MHz (numerical breakdown)`,
-        );
-      }
-      const scale = 1 / Math.sqrt(p1);
-      const den = ir * ir + ii * ii;
-      const zin: [number, number] = [ir / den, -ii / den];
-      for (let m = 0; m < n; m++) {
-        br[m] *= scale;
-        bi[m] *= scale;
-      }
-      const currents = segmentCurrents(mesh, br, bi);
-      const wireLoss = conductorLossWatts(mesh, omega, currents);
-      let loadLoss = 0;
-      loadPorts.forEach((l, i) => {
-        const [cr, ci] = portCurrent(l.pp, br, bi);
-        loadLoss += 0.5 * loadZ[i][0] * (cr * cr + ci * ci);
-      });
-      let groundLoss = 0;
-      groundPorts.forEach((g, i) => {
-        const z = groundZ[i];
-        if (!z) return;
-        const [cr, ci] = portCurrent(g.pp, br, bi);
-        groundLoss += 0.5 * z[0] * (cr * cr + ci * ci);
-      });
-      const accepted = 1;
-      const step = opts.patternStepDeg ?? 2;
-      const result: FrequencyResult = {
-        mhz: frequencyHz / 1e6,
-        impedance: zin,
-        swr: swr(zin, setup.referenceOhms),
-        peakGainDbi: Number.NaN,
-        peakElevationDeg: Number.NaN,
-        peakBearingDeg: Number.NaN,
-        directivityDbi: Number.NaN,
-        efficiency: (accepted - wireLoss - loadLoss - groundLoss) / accepted,
-        power: {
-          accepted,
-          radiated: accepted - wireLoss - loadLoss - groundLoss,
-          wireLoss,
-          loadLoss,
-          groundLoss,
-        },
-        currents: wirePeaks(mesh, currents),
-        segmentCurrents: currents,
-        feedCurrent: [ir * scale, ii * scale],
-        feedVoltage: [scale, 0],
-      };
-      if (step > 0 && setup.farField) {
-        const ff = setup.farField({
-          mesh: mesh.view,
-          currents,
-          frequencyHz,
-          ground: setup.farFieldGround,
-          acceptedWatts: accepted,
-          stepDeg: step,
-          keepPattern: opts.keepPattern ?? false,
-        });
-        result.power.radiated = ff.radiatedWatts;
-        result.efficiency = ff.radiatedWatts / accepted;
-        result.peakGainDbi = ff.peakGainDbi;
-        result.peakElevationDeg = ff.peakElevationDeg;
-        result.peakBearingDeg = ff.peakBearingDeg;
-        result.directivityDbi = ff.directivityDbi;
-        if (ff.pattern) result.pattern = ff.pattern;
-        result.elevationCut = ff.elevationCut;
-        result.azimuthCut = ff.azimuthCut;
-      }
-      return result;
+      return out;
     },
   };
+}
+
+/** Widest band (f_hi/f_lo − 1) one interpolator covers; measured error below 1e-3 in Z_in (see tests). */
+export const BAND_RATIO = 0.12;
+/** Fewer points than this in a band: fill each in full (three fills would not pay). */
+export const MIN_BAND_POINTS = 6;
+
+/** Indices of the frequencies grouped into bands (each sorted ascending), greedily from the lowest. */
+export function bandGroups(freqs: number[], ratio: number): number[][] {
+  const order = freqs.map((_, i) => i).sort((a, b) => freqs[a] - freqs[b]);
+  const groups: number[][] = [];
+  let cur: number[] = [];
+  for (const i of order) {
+    if (cur.length > 0 && freqs[i] > freqs[cur[0]] * (1 + ratio)) {
+      groups.push(cur);
+      cur = [];
+    }
+    cur.push(i);
+  }
+  if (cur.length > 0) groups.push(cur);
+  return groups;
 }
 
 export function swr(z: [number, number], z0: number): number {
