@@ -81,6 +81,23 @@ describe("complex LU with partial pivoting", () => {
     expect(() => luFactor(4, z, new Float64Array(16), new Int32Array(4))).toThrow(/column 2/);
   });
 
+  it("handles the empty and 1×1 systems", () => {
+    expect(() => luFactor(0, new Float64Array(0), new Float64Array(0), new Int32Array(0))).not.toThrow();
+    // (3 + 4j)·x = 25 → x = 25/(3 + 4j) = 3 − 4j.
+    const { xRe, xIm } = solveWithLu(
+      1,
+      Float64Array.of(3),
+      Float64Array.of(4),
+      Float64Array.of(25),
+      Float64Array.of(0),
+    );
+    expect(xRe[0]).toBeCloseTo(3, 14);
+    expect(xIm[0]).toBeCloseTo(-4, 14);
+    expect(() => luFactor(1, Float64Array.of(0), Float64Array.of(0), new Int32Array(1))).toThrow(
+      /column 0 of 1/,
+    );
+  });
+
   it("names a NaN entry instead of returning garbage", () => {
     const re = Float64Array.from([1, 0, 0, 1]);
     const im = Float64Array.from([0, 0, Number.NaN, 0]);
