@@ -128,7 +128,9 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
   const compiled = compilePlan(plan, { frequenciesMHz: sweeps.flat() });
   const prepared = solverStep(compiled, () => prepareModel(compiled.model, { patternStepDeg: 0 }));
   const run = activeRun(plan);
-  const runWires = compiled.model.wires.filter((w) => compiled.wireElement[w.id]?.elementId === run.id);
+  const runWires = compiled.model.wires.filter(
+    (w) => compiled.wireElement[w.id]?.elementId === run.id && compiled.wireElement[w.id].kind === "run",
+  );
   const height = plan.analysis?.referenceHeight ?? meanHeight(runWires.map((w) => w.points));
   const radius = runWires[0].radius;
   const warnings: PlanWarning[] = [...compiled.warnings, ...mapSolverWarnings(prepared.warnings, compiled)];
