@@ -16,7 +16,9 @@ import type { FarFieldFn } from "./fields/types";
 import { buildMesh } from "./geometry/mesh";
 import type { Mesh } from "./geometry/types";
 import type { GroundKernel } from "./ground/kernel";
+import { conductivityOf } from "./model/materials";
 import type { FrequencyResult, MeshView, SolveOptions, SolveResult, Warning, WireModel } from "./model/types";
+import { MU0 } from "./mom/constants";
 import { type RealGroundFactory, selectGround } from "./mom/ground-select";
 import { type FrequencySolveOptions, type MomSolver, makeMomSolver } from "./mom/prepare";
 import { mirrorSegmentSet } from "./mom/segments";
@@ -71,6 +73,7 @@ export function prepareInternal(
     segmentsPerWavelength: spw,
     ground: model.ground.kind !== "free",
   });
+  const warnings = [...mesh.warnings, ...materialWarnings(model, Math.min(...freqs) * 1e6)];
   const setup = {
     segments: mesh.segs,
     mirrored: mirrorSegmentSet(mesh.segs),
@@ -93,13 +96,44 @@ export function prepareInternal(
     mesh: mesh.view,
     segments: mesh.segs.n,
     unknowns: solver.unknowns,
-    warnings: mesh.warnings,
+    warnings,
     groundMethod: kernel.method,
     frequenciesMHz: freqs,
     solveAt: (hz, opts) => solver.solveAt(hz, { ...defaults, ...opts }),
     solveSweep: (hz, opts) => solver.solveSweep(hz, { ...defaults, ...opts }),
   };
   return { prepared, internals: { meshDetail: mesh, ground: kernel, solver } };
+}
+
+/**
+ * The loss model Z_s = (1 + j)·sqrt(ωμ0/2σ) needs the radius to be several skin depths
+ * δ = sqrt(2/(ωμ0σ)) (Ramo, Whinnery & Van Duzer, Fields and Waves, §5.6). Checked at the lowest
+ * frequency, where δ is largest.
+ */
+function materialWarnings(model: WireModel, fMinHz: number): Warning[] {
+  const out: Warning[] = [];
+  model.wires.forEach((w, i) => {
+    const sigma = conductivityOf(w.material);
+    if (!Number.isFinite(sigma)) return;
+    const delta = Math.sqrt(2 / (2 * Math.PI * fMinHz * MU0 * sigma));
+    if (w.radius < 3 * delta) {
+      out.push({
+        code: "skin-depth",
+        message: `wire "${w.id}" radius ${w.radius} m is under three skin depths (${delta.toPrecision(2)} m): its loss is only roughly estimated`,
+        wire: w.id,
+        path: `wires[${i}].radius`,
+      });
+    }
+    if (w.groundConnection !== undefined && model.ground.kind === "free") {
+      out.push({
+        code: "ground-connection-ignored",
+        message: `wire "${w.id}" has a ground connection but the model is in free space`,
+        wire: w.id,
+        path: `wires[${i}].groundConnection`,
+      });
+    }
+  });
+  return out;
 }
 
 export function solveModel(

@@ -53,7 +53,22 @@ export function geometryWarnings(mesh: Mesh, lambdaMin: number, tol: number): Wa
       if (wi === wj && j === i + 1) continue;
       const dmin = segmentDistance(S, D, segs.len, i, j);
       const gapLimit = MIN_GAP_OVER_RADIUS * Math.max(segs.radius[i], segs.radius[j]);
-      if (dmin <= tol) continue; // touching: a junction (or an end touching a segment: checked below)
+      if (dmin <= tol) {
+        // Touching. Fine if the two share a node (consecutive, or a junction of wire ends); otherwise
+        // an end or a crossing lies on another wire's run, and the two are NOT joined electrically.
+        if (!shareNode(S, D, segs.len, i, j, tol)) {
+          warned.add(key);
+          out.push({
+            code: "wires-touch",
+            message:
+              wi === wj
+                ? `wire "${wireIds[wi]}" crosses itself; crossings are not connections`
+                : `wires "${wireIds[wi]}" and "${wireIds[wj]}" touch away from their end points; they are not joined (join wires end to end to connect them)`,
+            wire: wireIds[wi],
+          });
+        }
+        continue;
+      }
       if (dmin < gapLimit + segs.radius[i] + segs.radius[j]) {
         warned.add(key);
         out.push({
@@ -68,6 +83,29 @@ export function geometryWarnings(mesh: Mesh, lambdaMin: number, tol: number): Wa
     }
   }
   return out;
+}
+
+/** Do segments i and j have an end point in common? */
+function shareNode(
+  S: Float64Array,
+  D: Float64Array,
+  L: Float64Array,
+  i: number,
+  j: number,
+  tol: number,
+): boolean {
+  for (const ei of [0, 1]) {
+    for (const ej of [0, 1]) {
+      let d2 = 0;
+      for (let c = 0; c < 3; c++) {
+        const a = S[3 * i + c] + ei * L[i] * D[3 * i + c];
+        const b = S[3 * j + c] + ej * L[j] * D[3 * j + c];
+        d2 += (a - b) * (a - b);
+      }
+      if (d2 <= tol * tol) return true;
+    }
+  }
+  return false;
 }
 
 /** Shortest distance between two segments (closest points of two line pieces, clamped). */

@@ -233,6 +233,59 @@ describe("warnings", () => {
   });
 });
 
+describe("more warnings", () => {
+  it("flags a wire end resting on another wire's run (not a junction)", () => {
+    const m: WireModel = {
+      wires: [
+        {
+          id: "top",
+          points: [
+            [-5, 0, 10],
+            [5, 0, 10],
+          ],
+          radius: 1e-3,
+        },
+        {
+          id: "drop",
+          points: [
+            [0.3, 0, 10],
+            [0.3, 0, 4],
+          ],
+          radius: 1e-3,
+        },
+      ],
+      feed: { wire: "top", at: 0.5 },
+      ground: { kind: "free" },
+      frequenciesMHz: [14],
+    };
+    expect(meshOf(m).warnings.map((w) => w.code)).toContain("wires-touch");
+  });
+
+  it("flags a lossy wire thinner than a few skin depths", () => {
+    // δ = sqrt(2/(ωμ0σ)) ≈ 0.18 mm for stainless steel at 1.8 MHz (Ramo, Whinnery & Van Duzer §5.6).
+    const r = solveModel(
+      {
+        wires: [
+          {
+            id: "w",
+            points: [
+              [-40, 0, 10],
+              [40, 0, 10],
+            ],
+            radius: 2e-4,
+            material: "stainless steel",
+          },
+        ],
+        feed: { wire: "w", at: 0.5 },
+        ground: { kind: "free" },
+        frequenciesMHz: [1.8],
+      },
+      { patternStepDeg: 0 },
+    );
+    expect(r.warnings.find((w) => w.code === "skin-depth")?.path).toBe("wires[0].radius");
+  });
+});
+
 describe("geometry errors name the offending field", () => {
   it("repeated point (zero-length segment)", () => {
     const m = base();
