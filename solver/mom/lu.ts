@@ -117,19 +117,18 @@ function factorNarrow(
   tiny: number,
 ): void {
   const nn = n * n;
-  for (let k = c0; k < c1; k++) {
-    // Pivot: largest |a_ik|² in column k at or below the diagonal.
-    let p = k;
-    let best = -1;
-    for (let i = k, ik = k * n + k; i < n; i++, ik += n) {
-      const r = re[ik];
-      const m = im[ik];
-      const mag = r * r + m * m;
-      if (mag > best) {
-        best = mag;
-        p = i;
-      }
+  // Pivot of the coming column: searched once at the panel's start, then found during the previous
+  // column's update pass, which visits the same rows anyway (saves a strided pass per column).
+  let p = c0;
+  let best = -1;
+  for (let i = c0, ik = c0 * n + c0; i < n; i++, ik += n) {
+    const mag = re[ik] * re[ik] + im[ik] * im[ik];
+    if (mag > best) {
+      best = mag;
+      p = i;
     }
+  }
+  for (let k = c0; k < c1; k++) {
     piv[k] = p;
     if (!(best > tiny) || !Number.isFinite(best)) throw singularError(k, n, best, tiny);
     if (p !== k) swapRows(n, re, im, k, p);
@@ -140,18 +139,31 @@ function factorNarrow(
     const inv = 1 / (dr * dr + di * di);
     const ir = dr * inv;
     const ii = -di * inv;
-    for (let ri = rk + n; ri < nn; ri += n) {
+    const next = k + 1;
+    const track = next < c1;
+    best = -1;
+    p = next;
+    for (let ri = rk + n, i = next; ri < nn; ri += n, i++) {
       const ar = re[ri + k];
       const ai = im[ri + k];
       const lr = ar * ir - ai * ii;
       const li = ar * ii + ai * ir;
       re[ri + k] = lr;
       im[ri + k] = li;
-      for (let j = k + 1; j < c1; j++) {
+      for (let j = next; j < c1; j++) {
         const ur = re[rk + j];
         const ui = im[rk + j];
         re[ri + j] -= lr * ur - li * ui;
         im[ri + j] -= lr * ui + li * ur;
+      }
+      if (track) {
+        const cr = re[ri + next];
+        const ci = im[ri + next];
+        const mag = cr * cr + ci * ci;
+        if (mag > best) {
+          best = mag;
+          p = i;
+        }
       }
     }
   }
@@ -508,15 +520,27 @@ function singularThreshold(
   im: Float64Array,
   upperOnly: boolean,
 ): number {
-  let maxSq = 0;
+  // Math.max propagates NaN, so one branch-free pass finds the maximum and any NaN; only then is the
+  // offending entry looked up for the message.
+  let m0 = 0;
+  let m1 = 0;
   for (let row = 0; row < n; row++) {
     const end = (row + 1) * n;
-    for (let i = upperOnly ? row * n + row : row * n; i < end; i++) {
-      const m = re[i] * re[i] + im[i] * im[i];
-      if (m > maxSq) maxSq = m;
-      else if (!(m <= maxSq)) {
-        // NaN fails both comparisons; report where it is rather than pivoting on garbage.
-        throw new Error(`${who}: matrix entry (${row}, ${i - row * n}) is not finite (${re[i]} + ${im[i]}j)`);
+    let i = upperOnly ? row * n + row : row * n;
+    for (; i + 1 < end; i += 2) {
+      m0 = Math.max(m0, re[i] * re[i] + im[i] * im[i]);
+      m1 = Math.max(m1, re[i + 1] * re[i + 1] + im[i + 1] * im[i + 1]);
+    }
+    if (i < end) m0 = Math.max(m0, re[i] * re[i] + im[i] * im[i]);
+  }
+  const maxSq = Math.max(m0, m1);
+  if (Number.isNaN(maxSq)) {
+    for (let row = 0; row < n; row++) {
+      for (let j = upperOnly ? row : 0; j < n; j++) {
+        const i = row * n + j;
+        if (Number.isNaN(re[i]) || Number.isNaN(im[i])) {
+          throw new Error(`${who}: matrix entry (${row}, ${j}) is not finite (${re[i]} + ${im[i]}j)`);
+        }
       }
     }
   }
