@@ -1,0 +1,253 @@
+/**
+ * Real (lossy) ground behind the engine's ground interface (kernel.ts): the "reflection" and
+ * "sommerfeld" near-interaction methods, "auto" choosing between them, and the ground connections of
+ * wire ends at z = 0.
+ *
+ * - reflection: perfect-image integrals weighted by Fresnel coefficients at the specular angle of each
+ *   segment pair (reflection.ts).
+ * - sommerfeld: the quasi-static image κ × (perfect image), κ = (ε_c − 1)/(ε_c + 1), through the same
+ *   image integrals (so every singular part is integrated as carefully as the free-space kernel), plus
+ *   the Sommerfeld remainder from a per-frequency table (sommerfeld-table.ts) at Gauss points on both
+ *   segments — the remainder is at most ~1/R′ at the image point, and small, so a few points suffice.
+ * - auto: sommerfeld when any wire comes within 0.1 λ of the ground (at the lowest frequency of the
+ *   model) or touches it, reflection otherwise.
+ * - connections: a z = 0 end carries a half triangle closed by its image (an ideal connection point);
+ *   nodeImpedance adds the series resistance of the connection model (connection.ts): 0 for "ideal",
+ *   Dwight's rod formula, a stated resistance, or the hemisphere spreading estimate for the default
+ *   bare "contact". All are low-frequency estimates and are labelled so.
+ */
+import { ModelError } from "../model/errors";
+import type { GroundMethod } from "../model/types";
+import { pairIntegrals } from "../mom/pair-integrals";
+import { gaussRule, type Rule } from "../mom/quadrature";
+import { connectionResistance } from "./connection";
+import { EPS0 } from "./fresnel";
+import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
+import type { ResolvedRealGround } from "./presets";
+import { type ReflectionWeights, reflectionPairTerms } from "./reflection";
+import {
+  buildSommerfeldTable,
+  contractRemainder,
+  lookupRemainder,
+  type SommerfeldTable,
+} from "./sommerfeld-table";
+
+const C0 = 299_792_458;
+
+/** Height (in wavelengths) below which "auto" runs the rigorous method. */
+export const AUTO_HEIGHT_WAVELENGTHS = 0.1;
+
+export interface RealGroundSetup extends GroundSetup {
+  /** Lowest frequency of the model (Hz), for the "auto" height criterion; absent → reflection unless a wire touches. */
+  lowestFrequencyHz?: number;
+}
+
+/** Lowest z over all segment end points, metres. */
+export function lowestPoint(setup: GroundSetup): number {
+  const S = setup.segments;
+  let zmin = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < S.n; i++) {
+    const z0 = S.start[3 * i + 2];
+    const z1 = z0 + S.dir[3 * i + 2] * S.len[i];
+    zmin = Math.min(zmin, z0, z1);
+  }
+  return zmin;
+}
+
+/**
+ * Largest |ε_c| the Sommerfeld tabulation accepts. Its cost grows with |k1| = |ε_c|^½ k0 (the integrals
+ * must resolve the Bessel oscillation out to a few |k1|); 1e4 covers every land ground and fresh water at
+ * HF, and sea water above about 9 MHz. Beyond it the ground is so good a conductor that the reflection
+ * method's plane-wave weighting errs only at O(|ε_c|^−½).
+ */
+export const SOMMERFELD_MAX_EPS = 1e4;
+
+/** |ε_c| of a ground at frequency f (Hz). */
+export function complexPermittivityMagnitude(
+  g: { permittivity: number; conductivity: number },
+  f: number,
+): number {
+  return Math.hypot(g.permittivity, g.conductivity / (2 * Math.PI * f * EPS0));
+}
+
+/** The method "auto" resolves to for this geometry and ground. */
+export function chooseMethod(
+  method: GroundMethod,
+  setup: RealGroundSetup,
+  ground?: { permittivity: number; conductivity: number },
+): "reflection" | "sommerfeld" {
+  if (method !== "auto") return method;
+  if (
+    ground &&
+    setup.lowestFrequencyHz &&
+    complexPermittivityMagnitude(ground, setup.lowestFrequencyHz) > SOMMERFELD_MAX_EPS
+  ) {
+    return "reflection";
+  }
+  const zmin = lowestPoint(setup);
+  if (zmin <= 1e-9) return "sommerfeld";
+  if (setup.lowestFrequencyHz && zmin < (AUTO_HEIGHT_WAVELENGTHS * C0) / setup.lowestFrequencyHz)
+    return "sommerfeld";
+  return "reflection";
+}
+
+/** Largest distance from any segment point to any mirrored segment point (bounding-box bound), metres. */
+function maxImageDistance(setup: GroundSetup): number {
+  const S = setup.segments;
+  let x0 = Number.POSITIVE_INFINITY;
+  let x1 = Number.NEGATIVE_INFINITY;
+  let y0 = x0;
+  let y1 = x1;
+  let z1 = 0;
+  for (let i = 0; i < S.n; i++) {
+    for (const u of [0, 1]) {
+      const x = S.start[3 * i] + u * S.dir[3 * i] * S.len[i];
+      const y = S.start[3 * i + 1] + u * S.dir[3 * i + 1] * S.len[i];
+      const z = S.start[3 * i + 2] + u * S.dir[3 * i + 2] * S.len[i];
+      x0 = Math.min(x0, x);
+      x1 = Math.max(x1, x);
+      y0 = Math.min(y0, y);
+      y1 = Math.max(y1, y);
+      z1 = Math.max(z1, z);
+    }
+  }
+  return Math.hypot(x1 - x0, y1 - y0, 2 * z1);
+}
+
+export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGround): GroundKernel {
+  const method = chooseMethod(ground.method, setup, ground);
+  const P = setup.segments;
+  const M = setup.mirrored;
+  const { permittivity, conductivity } = ground;
+  const j = new Float64Array(8);
+  const w: ReflectionWeights = { vecRe: 0, vecIm: 0, chargeRe: 0, chargeIm: 0 };
+  const I = new Float64Array(10);
+  const c = new Float64Array(2);
+  let k = 0;
+  let omega = 0;
+  let table: SommerfeldTable | undefined;
+  let kapRe = 1;
+  let kapIm = 0;
+  const rMax = maxImageDistance(setup) * 1.02 + 1e-6;
+
+  // Ground-connection resistance per wire (frequency independent estimates), from the wire's radius.
+  const wireRadius = new Map<number, number>();
+  for (let s = 0; s < P.n; s++) {
+    const wi = setup.wireOfSegment[s];
+    if (!wireRadius.has(wi)) wireRadius.set(wi, P.radius[s]);
+  }
+  const connectionOhms = setup.connections.map((conn, wi) =>
+    connectionResistance(
+      conn ?? "contact",
+      conductivity,
+      wireRadius.get(wi) ?? 0,
+      `wires[${wi}].groundConnection`,
+    ),
+  );
+
+  const remainderRule = (d: number, h: number): Rule =>
+    d < 2 * h ? gaussRule(4) : d < 6 * h ? gaussRule(3) : gaussRule(2);
+
+  const sommerfeldPair = (p: number, q: number, out: Float64Array) => {
+    // Quasi-static image: κ × the perfect-image terms (perfect adds −(t̂_p·M.dir)J and −J00).
+    pairIntegrals(P, p, M, q, k, j);
+    const dot =
+      P.dir[3 * p] * M.dir[3 * q] + P.dir[3 * p + 1] * M.dir[3 * q + 1] + P.dir[3 * p + 2] * M.dir[3 * q + 2];
+    for (let i = 0; i < 8; i += 2) {
+      out[i] -= dot * (kapRe * j[i] - kapIm * j[i + 1]);
+      out[i + 1] -= dot * (kapRe * j[i + 1] + kapIm * j[i]);
+    }
+    out[8] -= kapRe * j[0] - kapIm * j[1];
+    out[9] -= kapRe * j[1] + kapIm * j[0];
+    // Remainder at Gauss points.
+    const t = table as SommerfeldTable;
+    const p3 = 3 * p;
+    const q3 = 3 * q;
+    const lp = P.len[p];
+    const lq = P.len[q];
+    const dmx = P.mid[p3] - M.mid[q3];
+    const dmy = P.mid[p3 + 1] - M.mid[q3 + 1];
+    const dmz = P.mid[p3 + 2] - M.mid[q3 + 2];
+    const rule = remainderRule(Math.hypot(dmx, dmy, dmz), Math.max(lp, lq));
+    for (let a = 0; a < rule.n; a++) {
+      const u = rule.u[a];
+      const ox = P.start[p3] + u * lp * P.dir[p3];
+      const oy = P.start[p3 + 1] + u * lp * P.dir[p3 + 1];
+      const oz = P.start[p3 + 2] + u * lp * P.dir[p3 + 2];
+      for (let b = 0; b < rule.n; b++) {
+        const v = rule.u[b];
+        const sx = P.start[q3] + v * lq * P.dir[q3];
+        const sy = P.start[q3 + 1] + v * lq * P.dir[q3 + 1];
+        const sz = P.start[q3 + 2] + v * lq * P.dir[q3 + 2];
+        const dx = ox - sx;
+        const dy = oy - sy;
+        lookupRemainder(t, Math.hypot(dx, dy), Math.max(0, oz + sz), I);
+        contractRemainder(I, k, dx, dy, P.dir, p3, P.dir, q3, c);
+        const wt = rule.w[a] * rule.w[b] * lp * lq;
+        const gr = wt * c[0];
+        const gi = wt * c[1];
+        out[0] += gr;
+        out[1] += gi;
+        out[2] += u * gr;
+        out[3] += u * gi;
+        out[4] += v * gr;
+        out[5] += v * gi;
+        out[6] += u * v * gr;
+        out[7] += u * v * gi;
+      }
+    }
+  };
+
+  return {
+    method,
+    connectsAtZ0: true,
+    symmetric: true,
+    hasPairTerms: true,
+    beginFrequency(f: GroundFrequency) {
+      k = f.k;
+      omega = f.omega;
+      if (method === "sommerfeld") {
+        const mag = complexPermittivityMagnitude(ground, f.frequencyHz);
+        if (mag > SOMMERFELD_MAX_EPS) {
+          throw new ModelError(
+            "ground.method",
+            `the Sommerfeld method handles grounds up to |ε_c| = ${SOMMERFELD_MAX_EPS}; this one has |ε_c| = ${mag.toPrecision(3)} at ${(f.frequencyHz / 1e6).toPrecision(4)} MHz — use "reflection" (accurate for so good a conductor) or "auto"`,
+          );
+        }
+        const epsIm = -conductivity / (omega * EPS0);
+        // κ = (ε_c − 1)/(ε_c + 1)
+        const nr = permittivity - 1;
+        const dr = permittivity + 1;
+        const d = dr * dr + epsIm * epsIm;
+        kapRe = (nr * dr + epsIm * epsIm) / d;
+        kapIm = (epsIm * dr - nr * epsIm) / d;
+        table = buildSommerfeldTable({ k0: k, epsRe: permittivity, epsIm }, { rMax });
+      }
+    },
+    pairTerms(p: number, q: number, out: Float64Array) {
+      if (method === "reflection") {
+        reflectionPairTerms(P, p, M, q, k, permittivity, conductivity, omega, j, w, out);
+      } else {
+        sommerfeldPair(p, q, out);
+      }
+    },
+    nodeImpedance(wireIndex: number, out: Float64Array) {
+      const r = connectionOhms[wireIndex];
+      if (!r || r.model === "ideal") return false;
+      out[0] = r.ohms;
+      out[1] = 0;
+      return true;
+    },
+  };
+}
+
+/** Labels of the connection models per wire, for reports (index = model.wires index). */
+export function connectionLabels(setup: GroundSetup, conductivity: number): string[] {
+  const P = setup.segments;
+  return setup.connections.map((conn, wi) => {
+    let radius = 0;
+    for (let s = 0; s < P.n; s++) if (setup.wireOfSegment[s] === wi) radius = P.radius[s];
+    return connectionResistance(conn ?? "contact", conductivity, radius, `wires[${wi}].groundConnection`)
+      .label;
+  });
+}

@@ -1,0 +1,184 @@
+/**
+ * The Sommerfeld remainder (sommerfeld-integrals.ts) tabulated once per frequency and interpolated, so
+ * the matrix fill never evaluates a Sommerfeld integral itself.
+ *
+ * Coordinates: R′ = distance from the source's image (x′, y′, −z′) to the observer and θ′ = its angle
+ * from the vertical (Z = R′cosθ′, ρ = R′sinθ′). What is stored is F = R′ e^{jk0R′} I — the remainder
+ * behaves like 1/R′ at the image point and like a wave e^{−jk0R′}/R′ far away, so F is smooth in both
+ * directions and bicubic (4 × 4 Lagrange) interpolation on a modest grid reproduces it. Below the first
+ * node R′ is clamped (F tends to a function of θ′ alone there). R′ nodes: geometric near the image,
+ * then uniform at λ/30; θ′ nodes clustered toward grazing, where the ground-wave part varies fastest.
+ */
+import {
+  type HalfSpaceParams,
+  type RemainderContext,
+  remainderContext,
+  remainderIntegrals,
+} from "./sommerfeld-integrals";
+
+export interface SommerfeldTable {
+  ctx: RemainderContext;
+  k0: number;
+  rNodes: Float64Array;
+  tNodes: Float64Array;
+  /** F values, [iR][iθ][component re/im 10], flattened. */
+  data: Float64Array;
+  rMin: number;
+  rMax: number;
+}
+
+export interface TableOptions {
+  /** Largest R′ the model can need, metres. */
+  rMax: number;
+  /** Smallest R′ worth resolving, metres (default λ/5000). */
+  rMin?: number;
+  /** Uniform R′ spacing far out, in wavelengths (default 1/30). */
+  stepWavelengths?: number;
+  /** θ′ node count (default 21). */
+  thetaNodes?: number;
+}
+
+export function buildSommerfeldTable(h: HalfSpaceParams, opt: TableOptions): SommerfeldTable {
+  const ctx = remainderContext(h);
+  const lambda = (2 * Math.PI) / h.k0;
+  const rMin = opt.rMin ?? lambda / 5000;
+  const step = (opt.stepWavelengths ?? 1 / 30) * lambda;
+  const rs: number[] = [rMin];
+  while (rs[rs.length - 1] < opt.rMax) {
+    const last = rs[rs.length - 1];
+    rs.push(last + Math.min(step, 0.3 * last));
+  }
+  // Enough nodes past rMax for the cubic stencil to stay centred.
+  for (let i = 0; i < 2; i++) rs.push(rs[rs.length - 1] + Math.min(step, 0.3 * rs[rs.length - 1]));
+  const nT = opt.thetaNodes ?? 21;
+  const ts: number[] = [];
+  for (let i = 0; i < nT; i++) ts.push((Math.PI / 2) * Math.sin((Math.PI / 2) * (i / (nT - 1))));
+  const data = new Float64Array(rs.length * nT * 10);
+  const I = new Float64Array(10);
+  for (let i = 0; i < rs.length; i++) {
+    const R = rs[i];
+    const cr = Math.cos(h.k0 * R) * R;
+    const ci = Math.sin(h.k0 * R) * R;
+    for (let j = 0; j < nT; j++) {
+      remainderIntegrals(ctx, R * Math.sin(ts[j]), R * Math.cos(ts[j]), I);
+      const o = (i * nT + j) * 10;
+      for (let c = 0; c < 5; c++) {
+        const re = I[2 * c];
+        const im = I[2 * c + 1];
+        data[o + 2 * c] = re * cr - im * ci;
+        data[o + 2 * c + 1] = re * ci + im * cr;
+      }
+    }
+  }
+  return {
+    ctx,
+    k0: h.k0,
+    rNodes: Float64Array.from(rs),
+    tNodes: Float64Array.from(ts),
+    data,
+    rMin,
+    rMax: rs[rs.length - 1],
+  };
+}
+
+/** Index i with nodes[i] ≤ x < nodes[i+1], clamped so i−1 … i+2 exist where possible. */
+function stencilStart(nodes: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = nodes.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (nodes[mid] <= x) lo = mid;
+    else hi = mid;
+  }
+  return Math.max(0, Math.min(nodes.length - 4, lo - 1));
+}
+
+/** Lagrange weights of the 4 nodes starting at s for abscissa x. */
+function lagrange4(nodes: Float64Array, s: number, x: number, w: Float64Array): void {
+  for (let a = 0; a < 4; a++) {
+    let v = 1;
+    const xa = nodes[s + a];
+    for (let b = 0; b < 4; b++) if (b !== a) v *= (x - nodes[s + b]) / (xa - nodes[s + b]);
+    w[a] = v;
+  }
+}
+
+const wr = new Float64Array(4);
+const wt = new Float64Array(4);
+
+/**
+ * Interpolated remainder integrals [I1, I2, I3, I5, I6] (re, im) at horizontal distance ρ and image
+ * height Z, into out[0..9]. Throws if (ρ, Z) lies beyond the table (a bug: the table is sized from the model).
+ */
+export function lookupRemainder(t: SommerfeldTable, rho: number, Z: number, out: Float64Array): void {
+  const Rtrue = Math.hypot(rho, Z);
+  if (Rtrue > t.rMax) throw new Error(`Sommerfeld table too small: R′ = ${Rtrue} m > ${t.rMax} m`);
+  const R = Math.max(Rtrue, t.rMin);
+  const theta = Math.atan2(rho, Z);
+  const nT = t.tNodes.length;
+  const sr = stencilStart(t.rNodes, R);
+  const st = stencilStart(t.tNodes, theta);
+  lagrange4(t.rNodes, sr, R, wr);
+  lagrange4(t.tNodes, st, theta, wt);
+  for (let c = 0; c < 10; c++) out[c] = 0;
+  for (let a = 0; a < 4; a++) {
+    for (let b = 0; b < 4; b++) {
+      const w = wr[a] * wt[b];
+      const o = ((sr + a) * nT + st + b) * 10;
+      for (let c = 0; c < 10; c++) out[c] += w * t.data[o + c];
+    }
+  }
+  // Undo F = R′ e^{jk0R′} I with the true R′ (1/R′ behaviour below the first node).
+  const pr = Math.cos(t.k0 * Rtrue) / Rtrue;
+  const pi = -Math.sin(t.k0 * Rtrue) / Rtrue;
+  for (let c = 0; c < 5; c++) {
+    const re = out[2 * c];
+    const im = out[2 * c + 1];
+    out[2 * c] = re * pr - im * pi;
+    out[2 * c + 1] = re * pi + im * pr;
+  }
+}
+
+/**
+ * The remainder dyadic, normalised like G = e^{−jkR}/R (kernel.ts), contracted with observation tangent
+ * tp and source tangent tq: tp·𝐆_rem·tq into out[0..1]. (dx, dy) = horizontal offset observer − source,
+ * Z = z + z′. From the integrals (sommerfeld-integrals.ts header), divided by k0²:
+ *   hh: (k0²I1 − ½I2 − ½I3) 𝐈 + I3 ρ̂ρ̂,  z←h: −I6 ρ̂,  h←z: +I6 ρ̂,  zz: I5.
+ */
+export function contractRemainder(
+  I: Float64Array,
+  k0: number,
+  dx: number,
+  dy: number,
+  tp: ArrayLike<number>,
+  po: number,
+  tq: ArrayLike<number>,
+  qo: number,
+  out: Float64Array,
+): void {
+  const rho = Math.hypot(dx, dy);
+  let rx = 0;
+  let ry = 0;
+  if (rho > 0) {
+    rx = dx / rho;
+    ry = dy / rho;
+  }
+  const px = tp[po];
+  const py = tp[po + 1];
+  const pz = tp[po + 2];
+  const qx = tq[qo];
+  const qy = tq[qo + 1];
+  const qz = tq[qo + 2];
+  const hh = px * qx + py * qy;
+  const pr = px * rx + py * ry;
+  const qr = qx * rx + qy * ry;
+  const k2 = k0 * k0;
+  // Coefficients of I1, I2, I3, I5, I6 in tp·𝐆·tq (times k0²).
+  const c1 = k2 * hh;
+  const c2 = -0.5 * hh;
+  const c3 = -0.5 * hh + pr * qr;
+  const c5 = pz * qz;
+  const c6 = -pz * qr + pr * qz;
+  out[0] = (c1 * I[0] + c2 * I[2] + c3 * I[4] + c5 * I[6] + c6 * I[8]) / k2;
+  out[1] = (c1 * I[1] + c2 * I[3] + c3 * I[5] + c5 * I[7] + c6 * I[9]) / k2;
+}
