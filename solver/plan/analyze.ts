@@ -137,7 +137,11 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
 
   const results: BandAnalysis[] = bands.map((band, bi) => {
     const sweepResults = solverStep(compiled, () =>
-      sweeps[bi].map((mhz) => prepared.solveAt(mhz * 1e6, { patternStepDeg: 0 })),
+      // Impedance only; bands of ≥ 6 points interpolate Z between three full fills (Newman 1988).
+      prepared.solveSweep(
+        sweeps[bi].map((mhz) => mhz * 1e6),
+        { patternStepDeg: 0 },
+      ),
     );
     const sweep: SweepPoint[] = sweepResults.map((r) => ({ mhz: r.mhz, impedance: r.impedance, swr: r.swr }));
     const centreMHz = bandCentre(band);
