@@ -183,6 +183,11 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
       });
       result.power.radiated = ff.radiatedWatts;
       result.efficiency = ff.radiatedWatts / accepted;
+      if (setup.farFieldGround.kind === "real") {
+        // Over lossy ground the space-wave integral misses what the soil absorbs (and the surface
+        // wave): by Poynting's theorem that is the rest of the accepted power, connection loss included.
+        result.power.groundLoss = Math.max(0, accepted - ff.radiatedWatts - wireLoss - loadLoss);
+      }
       result.peakGainDbi = ff.peakGainDbi;
       result.peakElevationDeg = ff.peakElevationDeg;
       result.peakBearingDeg = ff.peakBearingDeg;
