@@ -157,6 +157,49 @@ describe("junctions and ends", () => {
     expect(Math.hypot(sumR, sumI)).toBeLessThan(1e-12 * magnitude);
   });
 
+  it("a feed at a 3-way junction gives the same impedance whatever the wire order", () => {
+    // The physics cannot depend on which junction end the basis bookkeeping pairs with the others.
+    const a = {
+      id: "a",
+      points: [
+        [0, 0, 1],
+        [0, 0, 0.2],
+      ] as [number, number, number][],
+      radius: 1e-3,
+    };
+    const b = {
+      id: "b",
+      points: [
+        [0, 0, 1],
+        [0.8, 0, 1.5],
+      ] as [number, number, number][],
+      radius: 1e-3,
+    };
+    const c = {
+      id: "c",
+      points: [
+        [-0.7, 0.2, 1.6],
+        [0, 0, 1],
+      ] as [number, number, number][],
+      radius: 1e-3,
+    };
+    const z = [
+      [a, b, c],
+      [b, a, c],
+      [c, b, a],
+    ].map(
+      (wires) =>
+        solveModel(
+          { wires, feed: { wire: "a", at: 0 }, ground: { kind: "free" }, frequenciesMHz: [100] },
+          { segmentsPerWavelength: 30, patternStepDeg: 0 },
+        ).results[0].impedance,
+    );
+    for (const zz of z.slice(1)) {
+      expect(zz[0]).toBeCloseTo(z[0][0], 4);
+      expect(zz[1]).toBeCloseTo(z[0][1], 4);
+    }
+  });
+
   it("free ends carry no current; a z = 0 end over ground does", () => {
     const r = solveModel(
       {
