@@ -83,7 +83,8 @@ describe("far-field properties", () => {
             scale = Math.max(scale, Math.hypot(thRe, thIm, phRe, phIm));
           }
         }
-        expect(worst / scale).toBeLessThan(1e-11);
+        // Long runs are interpolated from a table in r̂·t̂ (error ≈ 2e-10 of Σ|I|ℓ, radiation.ts).
+        expect(worst / scale).toBeLessThan(1e-8);
       }),
       { numRuns: 40 },
     );
