@@ -18,10 +18,24 @@ export interface FillScratch {
   g: Float64Array;
   /** Per-pair combined piece values: [vector(ea, eb) re/im for 4 combos, scalar re/im]. */
   c: Float64Array;
+  /** The pieces in segment order (index = position in mesh.segPieces), flattened for the scatter. */
+  basis: Int32Array;
+  atEnd: Uint8Array;
+  sign: Float64Array;
 }
 
-export function makeFillScratch(): FillScratch {
-  return { j: new Float64Array(8), g: new Float64Array(10), c: new Float64Array(10) };
+export function makeFillScratch(mesh: Mesh): FillScratch {
+  const np = mesh.segPieces.length;
+  const basis = new Int32Array(np);
+  const atEnd = new Uint8Array(np);
+  const sign = new Float64Array(np);
+  for (let i = 0; i < np; i++) {
+    const pc = mesh.segPieces[i];
+    basis[i] = mesh.pieceBasis[pc];
+    atEnd[i] = mesh.pieceAtEnd[pc];
+    sign[i] = mesh.pieceSign[pc];
+  }
+  return { j: new Float64Array(8), g: new Float64Array(10), c: new Float64Array(10), basis, atEnd, sign };
 }
 
 /** Which terms to fill: both, only the free-space kernel, or only the ground's reflected terms. */
@@ -49,17 +63,16 @@ export function fillMatrix(
   const withGround = parts !== "free" && ground.hasPairTerms;
   const groundInLoop = withGround && ground.symmetric;
   const withFree = parts !== "ground";
-  if (!withFree && !groundInLoop) J.fill(0);
+  if (!withFree) J.fill(0); // ground-only fill: the free-space integrals stay zero
   for (let p = 0; p < nSeg && (withFree || groundInLoop); p++) {
     if (sps[p] === sps[p + 1]) continue;
     for (let q = p; q < nSeg; q++) {
       if (sps[q] === sps[q + 1]) continue;
       if (withFree) pairIntegrals(S, p, S, q, k, J);
-      else J.fill(0);
-      G.fill(0);
+      for (let i = 0; i < 10; i++) G[i] = 0;
       if (groundInLoop) ground.pairTerms(p, q, G);
       combine(S.dir, p, q, J, G, k, f.eta, w.c);
-      scatter(mesh, p, q, w.c, zr, zi, n, true);
+      scatter(w, sps, S.len, p, q, w.c, zr, zi, n, true);
     }
   }
   if (withGround && !ground.symmetric) {
@@ -72,7 +85,7 @@ export function fillMatrix(
         G.fill(0);
         ground.pairTerms(p, q, G);
         combine(S.dir, p, q, J, G, k, f.eta, w.c);
-        scatter(mesh, p, q, w.c, zr, zi, n, false);
+        scatter(w, sps, S.len, p, q, w.c, zr, zi, n, false);
       }
     }
   }
@@ -115,7 +128,9 @@ function combine(
 }
 
 function scatter(
-  mesh: Mesh,
+  w: FillScratch,
+  sps: Int32Array,
+  len: Float64Array,
   p: number,
   q: number,
   c: Float64Array,
@@ -124,28 +139,29 @@ function scatter(
   n: number,
   mirror: boolean,
 ): void {
-  const sps = mesh.segPieceStart;
-  const sp = mesh.segPieces;
-  const pb = mesh.pieceBasis;
-  const pe = mesh.pieceAtEnd;
-  const sg = mesh.pieceSign;
-  const invLp = 1 / mesh.segs.len[p];
-  const invLq = 1 / mesh.segs.len[q];
-  for (let ia = sps[p]; ia < sps[p + 1]; ia++) {
-    const a = sp[ia];
+  const pb = w.basis;
+  const pe = w.atEnd;
+  const sg = w.sign;
+  const invLp = 1 / len[p];
+  const invLq = 1 / len[q];
+  const c8 = c[8];
+  const c9 = c[9];
+  const a1 = sps[p + 1];
+  const b0 = sps[q];
+  const b1 = sps[q + 1];
+  for (let a = sps[p]; a < a1; a++) {
     const ea = pe[a];
     const ma = pb[a];
     const da = ea ? invLp : -invLp;
-    for (let ib = sps[q]; ib < sps[q + 1]; ib++) {
-      const b = sp[ib];
+    const sa = sg[a];
+    for (let b = b0; b < b1; b++) {
       const eb = pe[b];
       const mb = pb[b];
-      const db = eb ? invLq : -invLq;
-      const ss = sg[a] * sg[b];
+      const sc = da * (eb ? invLq : -invLq);
+      const ss = sa * sg[b];
       const idx = 2 * (ea + 2 * eb);
-      const sc = da * db;
-      const vr = ss * (c[idx] + sc * c[8]);
-      const vi = ss * (c[idx + 1] + sc * c[9]);
+      const vr = ss * (c[idx] + sc * c8);
+      const vi = ss * (c[idx + 1] + sc * c9);
       zr[ma * n + mb] += vr;
       zi[ma * n + mb] += vi;
       if (mirror && p !== q) {

@@ -60,7 +60,7 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
   const piv = new Int32Array(n);
   const br = new Float64Array(n);
   const bi = new Float64Array(n);
-  const scratch = makeFillScratch();
+  const scratch = makeFillScratch(mesh);
   const feedPort = portPieces(mesh, mesh.feed);
   const loadPorts = mesh.loads.map((l) => ({ pp: portPieces(mesh, l.port), load: l.load, index: l.index }));
   const groundPorts = mesh.groundPorts.map((g) => ({ pp: portPieces(mesh, g.port), wire: g.wire }));
