@@ -16,6 +16,7 @@ import type { FarFieldFn } from "./fields/types";
 import { buildMesh } from "./geometry/mesh";
 import type { Mesh } from "./geometry/types";
 import type { GroundKernel } from "./ground/kernel";
+import { realGroundKernel } from "./ground/real";
 import { conductivityOf } from "./model/materials";
 import type { FrequencyResult, MeshView, SolveOptions, SolveResult, Warning, WireModel } from "./model/types";
 import { MU0 } from "./mom/constants";
@@ -40,7 +41,7 @@ export interface PreparedModel {
   solveSweep(frequenciesHz: number[], opts?: FrequencySolveOptions): FrequencyResult[];
 }
 
-/** Internal knobs (tests, benchmarks, the lossy-ground factory); not part of the app's contract. */
+/** Internal knobs (tests, benchmarks, a substitute lossy-ground factory); not part of the app's contract. */
 export interface EngineHooks {
   realGround?: RealGroundFactory;
   farField?: FarFieldFn | null;
@@ -75,12 +76,13 @@ export function prepareInternal(
   });
   const warnings = [...mesh.warnings, ...materialWarnings(model, Math.min(...freqs) * 1e6)];
   const setup = {
+    lowestFrequencyHz: Math.min(...freqs) * 1e6,
     segments: mesh.segs,
     mirrored: mirrorSegmentSet(mesh.segs),
     wireOfSegment: mesh.view.wireOfSegment,
     connections: model.wires.map((w) => w.groundConnection),
   };
-  const { kernel, farField } = selectGround(model.ground, setup, hooks.realGround);
+  const { kernel, farField } = selectGround(model.ground, setup, hooks.realGround ?? realGroundKernel);
   const solver = makeMomSolver({
     mesh,
     ground: kernel,

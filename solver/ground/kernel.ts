@@ -57,6 +57,8 @@ export interface GroundSetup {
   wireOfSegment: Int32Array;
   /** Per wire: its groundConnection as given (undefined when none was given). */
   connections: (GroundConnection | undefined)[];
+  /** Lowest frequency of the model (Hz), when known: real ground's "auto" method judges heights in its wavelength. */
+  lowestFrequencyHz?: number;
 }
 
 export interface GroundKernel {

@@ -37,10 +37,8 @@ const C0 = 299_792_458;
 /** Height (in wavelengths) below which "auto" runs the rigorous method. */
 export const AUTO_HEIGHT_WAVELENGTHS = 0.1;
 
-export interface RealGroundSetup extends GroundSetup {
-  /** Lowest frequency of the model (Hz), for the "auto" height criterion; absent → reflection unless a wire touches. */
-  lowestFrequencyHz?: number;
-}
+/** The ground setup; its lowestFrequencyHz drives "auto" (absent → reflection unless a wire touches z = 0). */
+export type RealGroundSetup = GroundSetup;
 
 /** Lowest z over all segment end points, metres. */
 export function lowestPoint(setup: GroundSetup): number {

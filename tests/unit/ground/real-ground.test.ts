@@ -1,0 +1,106 @@
+/**
+ * Whole-solver checks of real ground (solveModel with the real-ground kernel). Small models, one
+ * frequency each, coarse pattern grids where only the peak or the integral matters.
+ */
+import { describe, expect, it } from "vitest";
+import { groundLossWatts } from "../../../solver/ground/ground-loss";
+import { realGroundKernel } from "../../../solver/ground/real";
+import { solveModel } from "../../../solver/index";
+import type { GroundConnection, GroundInput, WireModel } from "../../../solver/model/types";
+
+const hooks = { realGround: realGroundKernel };
+const MHZ = 14.2;
+const LAMBDA = 299.792458 / MHZ;
+const AVERAGE: GroundInput = { kind: "real", conductivity: 0.005, permittivity: 13 };
+
+function dipole(heightWl: number, ground: GroundInput): WireModel {
+  const L = 0.48 * LAMBDA;
+  const h = heightWl * LAMBDA;
+  return {
+    wires: [
+      {
+        id: "d",
+        points: [
+          [-L / 2, 0, h],
+          [L / 2, 0, h],
+        ],
+        radius: 0.001,
+        segments: 21,
+      },
+    ],
+    feed: { wire: "d", at: 0.5 },
+    ground,
+    frequenciesMHz: [MHZ],
+  };
+}
+const solve1 = (m: WireModel, step = 3) => {
+  const r = solveModel(m, { patternStepDeg: step }, hooks);
+  return { ...r.results[0], method: r.groundMethod, mesh: r.mesh };
+};
+const rel = (a: [number, number], b: [number, number]) =>
+  Math.hypot(a[0] - b[0], a[1] - b[1]) / Math.hypot(b[0], b[1]);
+
+describe("real ground in the solver", () => {
+  // Energy conservation in the upper half-space: accepted = space-wave power through a large hemisphere
+  // (far field, solver/fields) + power through the plane z = 0 (spectral Poynting flux of the solved
+  // currents, solver/ground/ground-loss.ts) — two computations that share nothing with the Sommerfeld fill.
+  // Issue requirement: within 1 %.
+  it("closes the power balance for a low dipole over average ground (Sommerfeld)", () => {
+    const r = solve1(dipole(0.1, { ...AVERAGE, method: "sommerfeld" }), 2);
+    expect(r.method).toBe("sommerfeld");
+    const ground = groundLossWatts(r.mesh, r.segmentCurrents, MHZ * 1e6, {
+      permittivity: 13,
+      conductivity: 0.005,
+    });
+    const sum = r.power.radiated + ground + r.power.wireLoss;
+    expect(Math.abs(sum - r.power.accepted)).toBeLessThan(0.01);
+    expect(r.efficiency).toBeLessThan(0.9);
+  }, 60_000);
+
+  // Issue requirement: where both methods are valid (about 0.25 λ up) they agree — impedance within 3 %,
+  // peak gain within 0.3 dB.
+  it("reflection and Sommerfeld agree for a dipole a quarter wave up", () => {
+    const a = solve1(dipole(0.25, { ...AVERAGE, method: "reflection" }));
+    const b = solve1(dipole(0.25, { ...AVERAGE, method: "sommerfeld" }));
+    expect(rel(a.impedance, b.impedance)).toBeLessThan(0.03);
+    expect(Math.abs(a.peakGainDbi - b.peakGainDbi)).toBeLessThan(0.3);
+  }, 60_000);
+
+  // As σ grows, real ground must become the perfect ground (Fresnel limits R_v → 1, R_h → −1).
+  it("reflection method over a near-perfect conductor reproduces perfect ground", () => {
+    const p = solve1(dipole(0.2, { kind: "perfect" }));
+    const r = solve1(dipole(0.2, { kind: "real", conductivity: 1e9, permittivity: 1, method: "reflection" }));
+    expect(rel(r.impedance, p.impedance)).toBeLessThan(1e-4);
+    expect(Math.abs(r.peakGainDbi - p.peakGainDbi)).toBeLessThan(0.01);
+    expect(r.efficiency).toBeGreaterThan(0.999);
+  });
+
+  // The approach is slow — the loss of a good conductor under a low wire scales like its surface
+  // resistance √(ωμ₀/2σ) — so the check is monotone convergence plus closeness at σ = 0.5 S/m, 0.2 λ up.
+  it("Sommerfeld results approach perfect ground as σ grows", () => {
+    const p = solve1(dipole(0.2, { kind: "perfect" }));
+    const errs = [0.005, 0.05, 0.5].map((s) => {
+      const r = solve1(
+        dipole(0.2, { kind: "real", conductivity: s, permittivity: 10, method: "sommerfeld" }),
+      );
+      return { z: rel(r.impedance, p.impedance), loss: 1 - r.efficiency };
+    });
+    expect(errs[1].z).toBeLessThan(errs[0].z);
+    expect(errs[2].z).toBeLessThan(errs[1].z);
+    expect(errs[2].loss).toBeLessThan(errs[1].loss);
+    expect(errs[1].loss).toBeLessThan(errs[0].loss);
+    expect(errs[2].z).toBeLessThan(0.05);
+  }, 60_000);
+
+  // Trade fact (common practice, no published source): a half-wave dipole low over average ground has a
+  // higher feed resistance than over perfect ground, and loses more to the ground the lower it is.
+  it("a low dipole over average ground: higher feed resistance, more ground loss lower down", () => {
+    const perfect = solve1(dipole(0.08, { kind: "perfect" }), 0);
+    const low = solve1(dipole(0.08, AVERAGE));
+    const higher = solve1(dipole(0.2, AVERAGE));
+    expect(low.method).toBe("sommerfeld"); // "auto": a wire within 0.1 λ of the ground
+    expect(low.impedance[0]).toBeGreaterThan(perfect.impedance[0]);
+    expect(1 - low.efficiency).toBeGreaterThan(1 - higher.efficiency);
+    expect(1 - higher.efficiency).toBeGreaterThan(0.2); // more than 1 dB lost at 0.2 λ
+  }, 60_000);
+});
