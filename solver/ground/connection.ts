@@ -15,11 +15,16 @@
  *   millimetre wire in average soil), which is the physics that matters: a mast merely standing on the soil
  *   behaves almost like an insulated one.
  *
- * ρ = 1/σ. Displacement current in the soil is ignored in all three estimates (σ ≫ ωε at HF holds for wet
- * and average ground, less so for very dry ground; a further reason these are estimates).
+ * ρ = 1/σ. `connectionResistance` gives these d.c. values (what the formulas state). At HF the
+ * displacement current in the soil is comparable to the conduction current (σ ≈ ωε₀ε_r for average ground
+ * near 7 MHz), so `connectionImpedance` — what the solver uses — replaces σ by σ + jωε₀ε_r in the same
+ * quasi-static formulas: Z = R_dc · σ/(σ + jωε₀ε_r), the electrode in a lossy dielectric half-space. Still
+ * quasi-static: valid while the electrode is small against the wavelength in the soil (a 2.4 m rod in
+ * average ground at 7 MHz is about a quarter of it), hence "estimate" on every label.
  */
 import { ModelError } from "../model/errors";
 import type { GroundConnection } from "../model/types";
+import { EPS0 } from "./fresnel";
 
 export type ConnectionModel = "ideal" | "lumped" | "dwight-rod" | "contact-hemisphere";
 
@@ -102,6 +107,28 @@ export function connectionResistance(
     };
   }
   throw new ModelError(path, "unknown ground connection");
+}
+
+/**
+ * Series impedance [re, im] (ohms) of a connection at angular frequency ω over ground (σ, ε_r): the d.c.
+ * resistance of connectionResistance scaled by σ/(σ + jωε₀ε_r) for the electrode models ("contact", rod);
+ * a stated resistance is taken as given; "ideal" is 0.
+ */
+export function connectionImpedance(
+  connection: GroundConnection,
+  ground: { conductivity: number; permittivity: number },
+  omega: number,
+  wireRadius: number,
+  path: string,
+): { ohms: [number, number]; model: ConnectionModel; label: string } {
+  const r = connectionResistance(connection, ground.conductivity, wireRadius, path);
+  if (r.model === "ideal" || r.model === "lumped")
+    return { ohms: [r.ohms, 0], model: r.model, label: r.label };
+  // R σ/(σ + jb) = R σ (σ − jb)/(σ² + b²), b = ωε₀ε_r
+  const s = ground.conductivity;
+  const b = omega * EPS0 * ground.permittivity;
+  const d = s * s + b * b;
+  return { ohms: [(r.ohms * s * s) / d, (-r.ohms * s * b) / d], model: r.model, label: r.label };
 }
 
 function formatOhms(ohms: number): string {

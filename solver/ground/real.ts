@@ -14,13 +14,14 @@
  * - connections: a z = 0 end carries a half triangle closed by its image (an ideal connection point);
  *   nodeImpedance adds the series resistance of the connection model (connection.ts): 0 for "ideal",
  *   Dwight's rod formula, a stated resistance, or the hemisphere spreading estimate for the default
- *   bare "contact". All are low-frequency estimates and are labelled so.
+ *   bare "contact", each with σ → σ + jωε₀ε_r at HF (connectionImpedance). All are quasi-static
+ *   estimates and are labelled so.
  */
 import { ModelError } from "../model/errors";
 import type { GroundMethod } from "../model/types";
 import { pairIntegrals } from "../mom/pair-integrals";
 import { gaussRule, type Rule } from "../mom/quadrature";
-import { connectionResistance } from "./connection";
+import { connectionImpedance, connectionResistance } from "./connection";
 import { EPS0 } from "./fresnel";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 import type { ResolvedRealGround } from "./presets";
@@ -134,14 +135,23 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
     const wi = setup.wireOfSegment[s];
     if (!wireRadius.has(wi)) wireRadius.set(wi, P.radius[s]);
   }
-  const connectionOhms = setup.connections.map((conn, wi) =>
+  // Validated once here (bad rods or resistances fail before any maths), evaluated per frequency.
+  for (const [wi, conn] of setup.connections.entries()) {
     connectionResistance(
       conn ?? "contact",
       conductivity,
       wireRadius.get(wi) ?? 0,
       `wires[${wi}].groundConnection`,
-    ),
-  );
+    );
+  }
+  const connectionZ = (wi: number) =>
+    connectionImpedance(
+      setup.connections[wi] ?? "contact",
+      ground,
+      omega,
+      wireRadius.get(wi) ?? 0,
+      `wires[${wi}].groundConnection`,
+    );
 
   const remainderRule = (d: number, h: number): Rule =>
     d < 2 * h ? gaussRule(4) : d < 6 * h ? gaussRule(3) : gaussRule(2);
@@ -230,10 +240,10 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       }
     },
     nodeImpedance(wireIndex: number, out: Float64Array) {
-      const r = connectionOhms[wireIndex];
-      if (!r || r.model === "ideal") return false;
-      out[0] = r.ohms;
-      out[1] = 0;
+      const z = connectionZ(wireIndex);
+      if (z.model === "ideal") return false;
+      out[0] = z.ohms[0];
+      out[1] = z.ohms[1];
       return true;
     },
   };

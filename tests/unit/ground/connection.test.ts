@@ -1,5 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { connectionResistance, dwightRodResistance } from "../../../solver/ground/connection";
+import {
+  connectionImpedance,
+  connectionResistance,
+  dwightRodResistance,
+} from "../../../solver/ground/connection";
 import { ModelError } from "../../../solver/model/errors";
 
 describe("ground connection resistance", () => {
@@ -60,5 +64,39 @@ describe("ground connection resistance", () => {
     ).toBe("wires[2].groundConnection.rod.length");
     expect(path(() => connectionResistance({ ohms: Number.NaN }, 0.005, 0.001, "w.gc"))).toBe("w.gc.ohms");
     expect(path(() => connectionResistance("contact", 0.005, 0, "w.gc"))).toBe("w.gc");
+  });
+});
+
+describe("connection impedance at HF", () => {
+  // Quasi-static electrode in a lossy dielectric: σ → σ + jωε₀ε_r in the d.c. formula. When
+  // σ = ωε₀ε_r the impedance is R_dc/(1 + j) = R_dc (1 − j)/2: magnitude R/√2 at −45° (worked by hand).
+  it("scales the d.c. value by σ/(σ + jωε₀ε_r)", () => {
+    const eps0 = 8.8541878128e-12;
+    const er = 13;
+    const sigma = 0.005;
+    const omega = sigma / (eps0 * er);
+    const rdc = connectionResistance("contact", sigma, 0.002, "w").ohms;
+    const z = connectionImpedance(
+      "contact",
+      { conductivity: sigma, permittivity: er },
+      omega,
+      0.002,
+      "w",
+    ).ohms;
+    expect(z[0]).toBeCloseTo(rdc / 2, 6);
+    expect(z[1]).toBeCloseTo(-rdc / 2, 6);
+    // Far below that frequency the soil is a plain conductor again.
+    const lf = connectionImpedance(
+      { rod: { length: 2.4, radius: 0.008 } },
+      { conductivity: sigma, permittivity: er },
+      omega * 1e-6,
+      0.002,
+      "w",
+    ).ohms;
+    expect(lf[0]).toBeCloseTo(dwightRodResistance(200, 2.4, 0.008), 4);
+    // A stated resistance is taken as given.
+    expect(
+      connectionImpedance({ ohms: 25 }, { conductivity: sigma, permittivity: er }, omega, 0.002, "w").ohms,
+    ).toEqual([25, 0]);
   });
 });
