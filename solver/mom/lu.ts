@@ -472,35 +472,69 @@ export function luSolve(
       bIm[p] = t;
     }
   }
+  // Row-times-vector sums below use two accumulator pairs (even and odd j), so the additions form two
+  // independent dependency chains instead of one.
   // Forward: L y = P b (unit diagonal).
   for (let i = 1; i < n; i++) {
     const ri = i * n;
     let sr = bRe[i];
     let si = bIm[i];
-    for (let j = 0; j < i; j++) {
+    let tr = 0;
+    let ti = 0;
+    let j = 0;
+    for (; j + 1 < i; j += 2) {
       const lr = re[ri + j];
       const li = im[ri + j];
       const yr = bRe[j];
       const yi = bIm[j];
       sr -= lr * yr - li * yi;
       si -= lr * yi + li * yr;
+      const mr = re[ri + j + 1];
+      const mi = im[ri + j + 1];
+      const zr = bRe[j + 1];
+      const zi = bIm[j + 1];
+      tr += mr * zr - mi * zi;
+      ti += mr * zi + mi * zr;
     }
-    bRe[i] = sr;
-    bIm[i] = si;
+    if (j < i) {
+      const lr = re[ri + j];
+      const li = im[ri + j];
+      sr -= lr * bRe[j] - li * bIm[j];
+      si -= lr * bIm[j] + li * bRe[j];
+    }
+    bRe[i] = sr - tr;
+    bIm[i] = si - ti;
   }
   // Backward: U x = y.
   for (let i = n - 1; i >= 0; i--) {
     const ri = i * n;
     let sr = bRe[i];
     let si = bIm[i];
-    for (let j = i + 1; j < n; j++) {
+    let tr = 0;
+    let ti = 0;
+    let j = i + 1;
+    for (; j + 1 < n; j += 2) {
       const ur = re[ri + j];
       const ui = im[ri + j];
       const xr = bRe[j];
       const xi = bIm[j];
       sr -= ur * xr - ui * xi;
       si -= ur * xi + ui * xr;
+      const vr = re[ri + j + 1];
+      const vi = im[ri + j + 1];
+      const wr = bRe[j + 1];
+      const wi = bIm[j + 1];
+      tr += vr * wr - vi * wi;
+      ti += vr * wi + vi * wr;
     }
+    if (j < n) {
+      const ur = re[ri + j];
+      const ui = im[ri + j];
+      sr -= ur * bRe[j] - ui * bIm[j];
+      si -= ur * bIm[j] + ui * bRe[j];
+    }
+    sr -= tr;
+    si -= ti;
     const dr = re[ri + i];
     const di = im[ri + i];
     const inv = 1 / (dr * dr + di * di);
