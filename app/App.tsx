@@ -2,6 +2,7 @@ import { useEffect } from "react";
 import { Inspector } from "./panels/Inspector";
 import { Outline } from "./panels/Outline";
 import { Results } from "./panels/Results";
+import { StageControls } from "./panels/StageControls";
 import { Toolbar } from "./panels/Toolbar";
 import { deleteElement, duplicateElement } from "./plan/commands";
 import { Yard } from "./scene/Yard";
@@ -97,6 +98,7 @@ export function App() {
         <div className="stage">
           <Yard />
           <Notice />
+          <StageControls />
           <div className="legend" aria-hidden>
             <span>
               <i className="sw sw-low" /> low current

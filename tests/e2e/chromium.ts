@@ -1,3 +1,4 @@
+import { fileURLToPath } from "node:url";
 import type { LaunchOptions } from "@playwright/test";
 
 /**
@@ -24,6 +25,8 @@ export const PORT = 4173;
 export const webServer = {
   command: `npx vite build --logLevel warn && npx vite preview --port ${PORT} --strictPort --host 127.0.0.1`,
   url: `http://127.0.0.1:${PORT}/`,
+  // Build and serve from the project root, wherever Playwright was started.
+  cwd: fileURLToPath(new URL("../..", import.meta.url)),
   reuseExistingServer: !process.env.CI,
   timeout: 180_000,
   stdout: "ignore" as const,

@@ -16,7 +16,7 @@ interface Props {
 
 const RANGE_DB = 30;
 
-export function PolarPlot({ kind, anglesDeg, gainDbi, markDeg, size = 150, title }: Props) {
+export function PolarPlot({ kind, anglesDeg, gainDbi, markDeg, size = 168, title }: Props) {
   const finite = gainDbi.filter(Number.isFinite);
   if (anglesDeg.length < 2 || finite.length === 0) return <p className="muted">No pattern yet.</p>;
   const peak = Math.max(...finite);
