@@ -342,6 +342,77 @@ function kernel1x1(
   }
 }
 
+/** Largest |entry| of the LDLᵀ factors over the largest |a_ij| that still counts as harmless growth:
+ *  the backward error grows like growth·ε, so 1e4 keeps it near 1e-12 (Higham, Accuracy and Stability
+ *  of Numerical Algorithms, 2nd ed., §9.3 on growth factors). */
+const LDLT_GROWTH_LIMIT = 1e4;
+/** Relative asymmetry (of max|a_ij|) up to which a matrix counts as symmetric: a Galerkin fill is
+ *  symmetric only to quadrature accuracy (about 1e-10 here). */
+const SYMMETRY_TOLERANCE = 1e-8;
+
+let saveRe = new Float64Array(0);
+let saveIm = new Float64Array(0);
+
+/**
+ * Factor a matrix that is complex symmetric in theory (a moment-method Z), as cheaply as is safe:
+ * LDLᵀ (half the work) when A is symmetric to SYMMETRY_TOLERANCE and the factors show no growth beyond
+ * LDLT_GROWTH_LIMIT; otherwise pivoted LU on the original, which is kept for that case. Either way the
+ * result is solved with luSolve(n, re, im, piv, b) (piv is the identity after LDLᵀ).
+ * Returns which factorisation was used. Throws like luFactor when A is singular.
+ */
+export function factorSymmetric(
+  n: number,
+  re: Float64Array,
+  im: Float64Array,
+  piv: Int32Array,
+): "ldlt" | "lu" {
+  checkSizes("factorSymmetric", n, re, im, piv);
+  const nn = n * n;
+  let maxSq = 0;
+  let asymSq = 0;
+  for (let i = 0; i < n; i++) {
+    const ri = i * n;
+    maxSq = Math.max(maxSq, re[ri + i] * re[ri + i] + im[ri + i] * im[ri + i]);
+    for (let j = i + 1, ji = (i + 1) * n + i; j < n; j++, ji += n) {
+      const ar = re[ri + j];
+      const ai = im[ri + j];
+      const br = re[ji];
+      const bi = im[ji];
+      maxSq = Math.max(maxSq, ar * ar + ai * ai, br * br + bi * bi);
+      asymSq = Math.max(asymSq, (ar - br) * (ar - br) + (ai - bi) * (ai - bi));
+    }
+  }
+  if (Number.isNaN(maxSq) || !(asymSq <= SYMMETRY_TOLERANCE * SYMMETRY_TOLERANCE * maxSq)) {
+    luFactor(n, re, im, piv); // NaN or asymmetric: the general path (it also names a NaN entry)
+    return "lu";
+  }
+  if (saveRe.length < nn) {
+    saveRe = new Float64Array(nn);
+    saveIm = new Float64Array(nn);
+  }
+  saveRe.set(re.subarray(0, nn));
+  saveIm.set(im.subarray(0, nn));
+  let ok = true;
+  try {
+    ldltFactor(n, re, im);
+  } catch {
+    ok = false; // a tiny pivot: LU with interchanges may still succeed
+  }
+  if (ok) {
+    let growthSq = 0;
+    for (let i = 0; i < nn; i++) growthSq = Math.max(growthSq, re[i] * re[i] + im[i] * im[i]);
+    ok = growthSq <= LDLT_GROWTH_LIMIT * LDLT_GROWTH_LIMIT * maxSq;
+  }
+  if (ok) {
+    for (let i = 0; i < n; i++) piv[i] = i;
+    return "ldlt";
+  }
+  re.set(saveRe.subarray(0, nn));
+  im.set(saveIm.subarray(0, nn));
+  luFactor(n, re, im, piv);
+  return "lu";
+}
+
 /** Pivot block of the LDLᵀ: its U rows (LDLT_BLOCK·n·16 bytes) stay in L2 during the Schur update. */
 const LDLT_BLOCK = 32;
 

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { prepareInternal } from "../../../solver/index";
 import type { WireModel } from "../../../solver/model/types";
-import { ldltFactor, ldltSolve, luFactor, luSolve } from "../../../solver/mom/lu";
+import { factorSymmetric, ldltFactor, ldltSolve, luFactor, luSolve } from "../../../solver/mom/lu";
 import { setSimdEnabled } from "../../../solver/mom/lu-simd";
 import { naiveSolve, randomSystem, relResidual } from "./reference";
 
@@ -149,5 +149,73 @@ describe("complex-symmetric LDLᵀ (no pivoting)", () => {
     const x = solveLdlt(n, aRe, aIm, bRe, bIm);
     expect(relResidual(n, sRe, sIm, x.xRe, x.xIm, bRe, bIm)).toBeLessThan(1e-11);
     expect(relDiff(x.xRe, x.xIm, luX.xRe, luX.xIm)).toBeLessThan(1e-6);
+    // And the safe entry point picks LDLᵀ for it: symmetric to quadrature accuracy, no growth.
+    expect(factorSymmetric(n, aRe.slice(), aIm.slice(), new Int32Array(n))).toBe("ldlt");
+  });
+});
+
+describe("factorSymmetric: LDLᵀ when safe, pivoted LU otherwise", () => {
+  function solveSym(n: number, aRe: Float64Array, aIm: Float64Array, bRe: Float64Array, bIm: Float64Array) {
+    const re = aRe.slice();
+    const im = aIm.slice();
+    const piv = new Int32Array(n);
+    const used = factorSymmetric(n, re, im, piv);
+    const xRe = bRe.slice();
+    const xIm = bIm.slice();
+    luSolve(n, re, im, piv, xRe, xIm);
+    return { used, res: relResidual(n, aRe, aIm, xRe, xIm, bRe, bIm) };
+  }
+
+  it("uses LDLᵀ on a symmetric matrix with a strong diagonal", () => {
+    const s = randomSystem(60, 8, { symmetric: true });
+    const r = solveSym(60, s.aRe, s.aIm, s.bRe, s.bIm);
+    expect(r.used).toBe("ldlt");
+    expect(r.res).toBeLessThan(1e-12);
+  });
+
+  it("falls back to LU on an asymmetric matrix", () => {
+    const s = randomSystem(60, 8);
+    const r = solveSym(60, s.aRe, s.aIm, s.bRe, s.bIm);
+    expect(r.used).toBe("lu");
+    expect(r.res).toBeLessThan(1e-12);
+  });
+
+  it("falls back to LU on a zero pivot and on large growth", () => {
+    // [[0, 1], [1, 0]]: no LDLᵀ at all.
+    const z = solveSym(
+      2,
+      Float64Array.of(0, 1, 1, 0),
+      new Float64Array(4),
+      Float64Array.of(1, 2),
+      new Float64Array(2),
+    );
+    expect(z.used).toBe("lu");
+    expect(z.res).toBeLessThan(1e-15);
+    // [[1e-8, 1], [1, 1]]: LDLᵀ exists but d₂ = 1 − 1e8, a growth of 1e8 (Golub & Van Loan §3.4's example
+    // of why pivoting matters, in symmetric form).
+    const g = solveSym(
+      2,
+      Float64Array.of(1e-8, 1, 1, 1),
+      new Float64Array(4),
+      Float64Array.of(1, 2),
+      new Float64Array(2),
+    );
+    expect(g.used).toBe("lu");
+    expect(g.res).toBeLessThan(1e-15);
+  });
+
+  it("property: always solves random symmetric systems, with or without a strong diagonal", () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 40 }),
+        fc.integer({ min: 1, max: 2 ** 30 }),
+        fc.boolean(),
+        (n, seed, strong) => {
+          const s = randomSystem(n, seed, { symmetric: true, diagonalShift: strong ? n : 0 });
+          return solveSym(n, s.aRe, s.aIm, s.bRe, s.bIm).res < 1e-9;
+        },
+      ),
+      { numRuns: 100 },
+    );
   });
 });
