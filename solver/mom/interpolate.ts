@@ -32,6 +32,7 @@ export function basisCentres(mesh: Mesh): Float64Array {
 }
 
 interface Part {
+  kind: "free" | "ground";
   /** Quadratic coefficients in x = (f − f0)/h, split re/im: c0 + c1 x + c2 x². */
   c: Float64Array[];
   /** Phase distance per entry. */
@@ -43,36 +44,32 @@ interface Part {
   rotI: Float64Array;
 }
 
+/**
+ * Built once per prepared model (buffers and phase distances are frequency independent), then
+ * `fit(fLo, fHi)` per band: three fills per part, no allocation.
+ */
 export class BandInterpolator {
-  readonly fLo: number;
-  readonly fHi: number;
+  fLo = Number.NaN;
+  fHi = Number.NaN;
   private readonly n: number;
-  private readonly f0: number;
-  private readonly h: number;
+  private f0 = Number.NaN;
+  private h = Number.NaN;
   private readonly parts: Part[] = [];
   /** Wavenumber of the last call and the step that led to it (NaN: none yet). */
   private lastK = Number.NaN;
   private lastDk = Number.NaN;
 
   constructor(
-    mesh: Mesh,
-    ground: GroundKernel,
-    fLo: number,
-    fHi: number,
-    scratch: FillScratch,
-    zr: Float64Array,
-    zi: Float64Array,
+    private readonly mesh: Mesh,
+    private readonly ground: GroundKernel,
   ) {
     const n = mesh.nBasis;
     this.n = n;
-    this.fLo = fLo;
-    this.fHi = fHi;
-    this.f0 = 0.5 * (fLo + fHi);
-    this.h = 0.5 * (fHi - fLo);
     const centres = basisCentres(mesh);
     const kinds: ("free" | "ground")[] = ground.hasPairTerms ? ["free", "ground"] : ["free"];
+    const n2 = n * n;
     for (const kind of kinds) {
-      const R = new Float64Array(n * n);
+      const R = new Float64Array(n2);
       for (let a = 0; a < n; a++) {
         for (let b = 0; b < n; b++) {
           const dx = centres[3 * a] - centres[3 * b];
@@ -84,45 +81,60 @@ export class BandInterpolator {
           R[a * n + b] = Math.sqrt(dx * dx + dy * dy + dz * dz);
         }
       }
-      // Samples at x = −1, 0, 1 → c0 = s0, c1 = (s1 − s−1)/2, c2 = (s1 + s−1)/2 − s0.
-      const samples: Float64Array[] = [];
+      const c = Array.from({ length: 6 }, () => new Float64Array(n2));
+      this.parts.push({
+        kind,
+        c,
+        R,
+        phR: new Float64Array(n2),
+        phI: new Float64Array(n2),
+        rotR: new Float64Array(n2),
+        rotI: new Float64Array(n2),
+      });
+    }
+  }
+
+  /** Fit the band [fLo, fHi] (Hz) from full fills at its ends and middle; zr/zi/scratch are work space. */
+  fit(fLo: number, fHi: number, scratch: FillScratch, zr: Float64Array, zi: Float64Array): void {
+    const n2 = this.n * this.n;
+    this.fLo = fLo;
+    this.fHi = fHi;
+    this.f0 = 0.5 * (fLo + fHi);
+    this.h = 0.5 * (fHi - fLo);
+    this.lastK = Number.NaN;
+    this.lastDk = Number.NaN;
+    for (const part of this.parts) {
+      const [c0r, c0i, c1r, c1i, c2r, c2i] = part.c;
+      const R = part.R;
+      // Samples s(x) of f·Z·e^{+jkR} at x = −1, 0, 1: c0 = s0, c1 = (s1 − s−1)/2, c2 = (s1 + s−1)/2 − s0.
+      // s−1 is parked in c2 and s0 in c0 until s1 arrives.
       for (const x of [-1, 0, 1]) {
         const f = this.f0 + x * this.h;
         const omega = 2 * Math.PI * f;
         const k = omega / C0;
-        ground.beginFrequency({ frequencyHz: f, omega, k, eta: ETA0 });
-        fillMatrix(mesh, ground, { frequencyHz: f, omega, k, eta: ETA0 }, zr, zi, scratch, kind);
-        const sr = new Float64Array(n * n);
-        const si = new Float64Array(n * n);
-        for (let i = 0; i < n * n; i++) {
+        const fr = { frequencyHz: f, omega, k, eta: ETA0 };
+        this.ground.beginFrequency(fr);
+        fillMatrix(this.mesh, this.ground, fr, zr, zi, scratch, part.kind);
+        for (let i = 0; i < n2; i++) {
           const ph = k * R[i];
           const c = Math.cos(ph) * f;
           const s = Math.sin(ph) * f;
-          // f·Z·e^{+jkR}
-          sr[i] = zr[i] * c - zi[i] * s;
-          si[i] = zr[i] * s + zi[i] * c;
+          const sr = zr[i] * c - zi[i] * s;
+          const si = zr[i] * s + zi[i] * c;
+          if (x === -1) {
+            c2r[i] = sr;
+            c2i[i] = si;
+          } else if (x === 0) {
+            c0r[i] = sr;
+            c0i[i] = si;
+          } else {
+            c1r[i] = 0.5 * (sr - c2r[i]);
+            c1i[i] = 0.5 * (si - c2i[i]);
+            c2r[i] = 0.5 * (sr + c2r[i]) - c0r[i];
+            c2i[i] = 0.5 * (si + c2i[i]) - c0i[i];
+          }
         }
-        samples.push(sr, si);
       }
-      const [mr, mi, zr0, zi0, pr, pi] = samples;
-      const c1r = new Float64Array(n * n);
-      const c1i = new Float64Array(n * n);
-      const c2r = new Float64Array(n * n);
-      const c2i = new Float64Array(n * n);
-      for (let i = 0; i < n * n; i++) {
-        c1r[i] = 0.5 * (pr[i] - mr[i]);
-        c1i[i] = 0.5 * (pi[i] - mi[i]);
-        c2r[i] = 0.5 * (pr[i] + mr[i]) - zr0[i];
-        c2i[i] = 0.5 * (pi[i] + mi[i]) - zi0[i];
-      }
-      this.parts.push({
-        c: [zr0, zi0, c1r, c1i, c2r, c2i],
-        R,
-        phR: new Float64Array(n * n),
-        phI: new Float64Array(n * n),
-        rotR: new Float64Array(n * n),
-        rotI: new Float64Array(n * n),
-      });
     }
   }
 
@@ -140,37 +152,49 @@ export class BandInterpolator {
     const invF = 1 / f;
     const dk = k - this.lastK;
     const mode = Number.isNaN(dk) ? 0 : Math.abs(dk - this.lastDk) <= 1e-9 * Math.abs(dk) ? 2 : 1;
+    const n = this.n;
     zr.fill(0, 0, n2);
     zi.fill(0, 0, n2);
+    // Z is symmetric: work on the upper triangle (j ≥ i) only, mirror at the end.
     for (const part of this.parts) {
       const [c0r, c0i, c1r, c1i, c2r, c2i] = part.c;
       const { R, phR, phI, rotR, rotI } = part;
-      if (mode === 0) {
-        for (let i = 0; i < n2; i++) {
-          phR[i] = Math.cos(k * R[i]);
-          phI[i] = -Math.sin(k * R[i]);
-        }
-      } else {
-        if (mode === 1) {
-          for (let i = 0; i < n2; i++) {
-            rotR[i] = Math.cos(dk * R[i]);
-            rotI[i] = -Math.sin(dk * R[i]);
+      for (let r = 0; r < n; r++) {
+        const i0 = r * n + r;
+        const i1 = r * n + n;
+        if (mode === 0) {
+          for (let i = i0; i < i1; i++) {
+            phR[i] = Math.cos(k * R[i]);
+            phI[i] = -Math.sin(k * R[i]);
+          }
+        } else {
+          if (mode === 1) {
+            for (let i = i0; i < i1; i++) {
+              rotR[i] = Math.cos(dk * R[i]);
+              rotI[i] = -Math.sin(dk * R[i]);
+            }
+          }
+          for (let i = i0; i < i1; i++) {
+            const a = phR[i];
+            const b = phI[i];
+            phR[i] = a * rotR[i] - b * rotI[i];
+            phI[i] = a * rotI[i] + b * rotR[i];
           }
         }
-        for (let i = 0; i < n2; i++) {
-          const a = phR[i];
-          const b = phI[i];
-          phR[i] = a * rotR[i] - b * rotI[i];
-          phI[i] = a * rotI[i] + b * rotR[i];
+        for (let i = i0; i < i1; i++) {
+          const ar = (c0r[i] + x * c1r[i] + x2 * c2r[i]) * invF;
+          const ai = (c0i[i] + x * c1i[i] + x2 * c2i[i]) * invF;
+          const pr = phR[i];
+          const pi = phI[i];
+          zr[i] += ar * pr - ai * pi;
+          zi[i] += ar * pi + ai * pr;
         }
       }
-      for (let i = 0; i < n2; i++) {
-        const ar = (c0r[i] + x * c1r[i] + x2 * c2r[i]) * invF;
-        const ai = (c0i[i] + x * c1i[i] + x2 * c2i[i]) * invF;
-        const pr = phR[i];
-        const pi = phI[i];
-        zr[i] += ar * pr - ai * pi;
-        zi[i] += ar * pi + ai * pr;
+    }
+    for (let r = 1; r < n; r++) {
+      for (let c = 0; c < r; c++) {
+        zr[r * n + c] = zr[c * n + r];
+        zi[r * n + c] = zi[c * n + r];
       }
     }
     if (mode !== 2) this.lastDk = dk;

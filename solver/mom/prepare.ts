@@ -9,9 +9,9 @@ import type { GroundKernel } from "../ground/kernel";
 import { ModelError } from "../model/errors";
 import type { FrequencyResult, SegmentCurrents, WireCurrentSummary } from "../model/types";
 import { C0, ETA0 } from "./constants";
+import { makeSolveWork, solveSymmetric } from "./factor-solve";
 import { fillMatrix, makeFillScratch } from "./fill";
 import { BandInterpolator } from "./interpolate";
-import { luFactor, luSolve } from "./lu";
 import {
   addConductorLoss,
   addPortImpedance,
@@ -57,7 +57,7 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
     );
   const zr = new Float64Array(n * n);
   const zi = new Float64Array(n * n);
-  const piv = new Int32Array(n);
+  const work = makeSolveWork(n);
   const br = new Float64Array(n);
   const bi = new Float64Array(n);
   const scratch = makeFillScratch(mesh);
@@ -69,6 +69,7 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
   const loadZ: [number, number][] = loadPorts.map(() => [0, 0]);
 
   let band: BandInterpolator | null = null;
+  let interp: BandInterpolator | null = null;
   const assemble = (frequencyHz: number) => {
     if (!(frequencyHz > 0) || !Number.isFinite(frequencyHz)) {
       throw new ModelError(
@@ -106,18 +107,17 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
 
   const solveAt = (frequencyHz: number, opts: FrequencySolveOptions = {}): FrequencyResult => {
     const omega = assemble(frequencyHz);
+    br.fill(0);
+    bi.fill(0);
+    for (let a = 0; a < feedPort.basis.length; a++) br[feedPort.basis[a]] = feedPort.sign[a];
     try {
-      luFactor(n, zr, zi, piv);
+      solveSymmetric(work, zr, zi, br, bi);
     } catch (e) {
       throw new ModelError(
         "wires",
         `the impedance matrix is singular at ${frequencyHz / 1e6} MHz (overlapping wires or a degenerate geometry?): ${(e as Error).message}`,
       );
     }
-    br.fill(0);
-    bi.fill(0);
-    for (let a = 0; a < feedPort.basis.length; a++) br[feedPort.basis[a]] = feedPort.sign[a];
-    luSolve(n, zr, zi, piv, br, bi);
     const [ir, ii] = portCurrent(feedPort, br, bi);
     // 1 V applied: P = ½ Re(V I*) = ½ Re(I).
     const p1 = 0.5 * ir;
@@ -210,18 +210,12 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
       const out: FrequencyResult[] = new Array(frequenciesHz.length);
       const canInterpolate = ground.interpolable === true && opts.interpolate !== false;
       for (const group of bandGroups(frequenciesHz, canInterpolate ? BAND_RATIO : 0)) {
-        band =
-          group.length >= MIN_BAND_POINTS
-            ? new BandInterpolator(
-                mesh,
-                ground,
-                frequenciesHz[group[0]],
-                frequenciesHz[group[group.length - 1]],
-                scratch,
-                zr,
-                zi,
-              )
-            : null;
+        band = null;
+        if (group.length >= MIN_BAND_POINTS) {
+          interp ??= new BandInterpolator(mesh, ground);
+          interp.fit(frequenciesHz[group[0]], frequenciesHz[group[group.length - 1]], scratch, zr, zi);
+          band = interp;
+        }
         try {
           for (const i of group) out[i] = solveAt(frequenciesHz[i], opts);
         } finally {
