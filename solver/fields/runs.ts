@@ -1,9 +1,8 @@
 /**
- * Straight runs: maximal chains of consecutive segments that are collinear, equally long, joined end to
- * start, and carry a continuous current. On a run the current is Σ_k I_k Λ_k(l) over equally spaced nodes,
- * which lets the far-field kernel sum a whole run as one polynomial in e^{jkℓ r̂·t̂} (see radiation.ts)
- * instead of paying two sines and cosines per segment and direction. Any mesh works: a segment that fits
- * no chain is a run of one.
+ * Straight runs: maximal chains of consecutive segments (up to MAX_RUN_SEGMENTS) that are collinear,
+ * equally long, joined end to start, and carry a continuous current. On a run the current is
+ * Σ_k I_k Λ_k(l) over equally spaced nodes, which lets the far-field kernel treat a whole run as one
+ * function of r̂·t̂ (see radiation.ts). Any mesh works: a segment that fits no chain is a run of one.
  */
 
 import type { MeshView, SegmentCurrents } from "../model/types";
@@ -27,6 +26,8 @@ export interface Runs {
 /** Relative tolerances: below these a run's idealised geometry and current differ from the mesh by < 1e-9. */
 const GEOMETRY_TOL = 1e-10;
 const CURRENT_TOL = 1e-11;
+/** Longer runs are cut in pieces: keeps each run's band limit, and so its table (cost ∝ n²), small. */
+export const MAX_RUN_SEGMENTS = 128;
 
 export function buildRuns(mesh: MeshView, currents: SegmentCurrents): Runs {
   checkMeshAndCurrents(mesh, currents);
@@ -65,7 +66,7 @@ export function buildRuns(mesh: MeshView, currents: SegmentCurrents): Runs {
         Math.hypot(tx - ptx, ty - pty, tz - ptz) <= GEOMETRY_TOL &&
         jump <= CURRENT_TOL * scale;
     }
-    if (joins) segs[segs.length - 1]++;
+    if (joins && segs[segs.length - 1] < MAX_RUN_SEGMENTS) segs[segs.length - 1]++;
     else {
       segs.push(1);
       firstSeg.push(i);
