@@ -5,13 +5,18 @@
  *   npm run --silent bench -- --json  {"cases":[{name, unknowns, frequencies, medianMs, ...}]} on stdout
  *   npm run bench -- --only=lu-400    run one case (comma-separated list allowed)
  *
+ * Cases: lu-400 (target ≥ 8 GFlop/s, counting 8/3·n³), lu-400-naive (the plain triple loop, for scale),
+ * ldlt-400, zlu-200 / zsym-200 (the real yard-200 matrix, pivoted LU vs factorSymmetric), yard-200
+ * (< 20 ms), sweep-41 (< 250 ms), yard-200-real (no target yet). Model cases skip, with a note, when the
+ * engine cannot run them.
+ *
  * Each case is warmed up (so the JIT has compiled the hot loops) and then repeated; we report the median,
  * which is robust to the odd slow run on a shared machine, and the minimum, which is the machine's best.
  * Notes (skipped cases, sanity warnings) go to stderr so the JSON on stdout stays clean.
  */
 
 import type { SolveOptions, SolveResult, WireModel } from "../../solver/model/types";
-import { ldltFactor, ldltSolve, luFactor, luSolve } from "../../solver/mom/lu";
+import { factorSymmetric, ldltFactor, ldltSolve, luFactor, luSolve } from "../../solver/mom/lu";
 import { randomSystem, relResidual } from "../unit/linalg/reference";
 import { AVERAGE_GROUND, PERFECT_GROUND, yardModel } from "./models";
 import { naiveLuFactor } from "./naive-lu";
@@ -143,6 +148,59 @@ async function loadSolveModel(): Promise<Solve | null> {
 
 class Skip extends Error {}
 
+type Internals = (
+  model: WireModel,
+  options?: SolveOptions,
+) => { internals: { solver: { matrixAt(hz: number): { re: Float64Array; im: Float64Array; n: number } } } };
+
+/**
+ * Factor + solve the real yard-200 impedance matrix (not a random one): the pivoted LU against
+ * factorSymmetric (LDLᵀ when safe), to show what the symmetric path saves on the matrices we have.
+ */
+function zMatrixCase(name: string, symmetric: boolean): BenchCase {
+  return {
+    name,
+    warmup: 10,
+    runs: 31,
+    async prepare() {
+      let prep: Internals | undefined;
+      try {
+        prep = ((await import("../../solver/index")) as { prepareInternal?: Internals }).prepareInternal;
+      } catch {
+        prep = undefined;
+      }
+      if (!prep) throw new Skip("prepareInternal not available");
+      const z = prep(yardModel(PERFECT_GROUND, [14.15]), { patternStepDeg: 0 }).internals.solver.matrixAt(
+        14.15e6,
+      );
+      const n = z.n;
+      const aRe = z.re.slice(0, n * n);
+      const aIm = z.im.slice(0, n * n);
+      const re = new Float64Array(n * n);
+      const im = new Float64Array(n * n);
+      const piv = new Int32Array(n);
+      const xr = new Float64Array(n);
+      const xi = new Float64Array(n);
+      let used = "lu";
+      return {
+        run() {
+          re.set(aRe);
+          im.set(aIm);
+          xr.fill(0);
+          xi.fill(0);
+          xr[n >> 1] = 1;
+          if (symmetric) used = factorSymmetric(n, re, im, piv);
+          else luFactor(n, re, im, piv);
+          luSolve(n, re, im, piv, xr, xi);
+        },
+        describe() {
+          return { unknowns: n, frequencies: 1, factorisation: used };
+        },
+      };
+    },
+  };
+}
+
 function modelCase(
   name: string,
   model: WireModel,
@@ -206,6 +264,8 @@ const cases: BenchCase[] = [
   luCase("lu-400", 400, luPair, false, 5, 15),
   luCase("lu-400-naive", 400, naivePair, false, 1, 5),
   luCase("ldlt-400", 400, ldltPair, true, 5, 15),
+  zMatrixCase("zlu-200", false),
+  zMatrixCase("zsym-200", true),
   modelCase("yard-200", yardModel(PERFECT_GROUND, [14.15]), { patternStepDeg: 2 }, 20, 3, 11),
   modelCase(
     "sweep-41",
@@ -276,6 +336,7 @@ function printRow(r: CaseResult): void {
       `${r.gflops} GFlop/s${r.name.startsWith("ldlt-") ? " (LU-equivalent: 8/3·n³ over the time)" : ""}`,
     );
   }
+  if (typeof r.factorisation === "string") notes.push(`yard-200 Z, ${r.factorisation}`);
   if (Array.isArray(r.impedance)) {
     const [zr, zi] = r.impedance as number[];
     notes.push(
