@@ -7,7 +7,10 @@
  * The kernel does exactly what lu.ts's kernel4x2 does, on matrices copied into the module's memory
  * (split real/imaginary, row-major, byte offsets `re` and `im`):
  *
- *   A[i+r, j] −= A[i+r, k]·A[k, j] + A[i+r, k+1]·A[k+1, j]   for r = 0..3 and j in [j0, j1), j1 − j0 even.
+ *   A[i+r, j] −= Σ_k A[i+r, k]·A[k, j]   for r = 0..3, k in [k0, k1), j in [j0, j1);
+ *
+ * k1 − k0 and j1 − j0 even. Pivots go two at a time (as kernel4x2) in a loop inside the module, so one
+ * call covers a whole row block: the four rows stay in L1 and the JS→Wasm transition is paid once.
  *
  * Encoding references: WebAssembly Core Specification 2.0, §5 (binary format), and its SIMD instruction
  * table (prefix 0xFD, LEB128 opcodes).
@@ -15,8 +18,18 @@
 
 export interface SimdKernel {
   memory: WebAssembly.Memory;
-  /** (re, im, n, i, k, j0, j1): byte offsets of the two arrays, then element indices; j1 − j0 even. */
-  kernel4x2: (re: number, im: number, n: number, i: number, k: number, j0: number, j1: number) => void;
+  /** (re, im, n, i, k0, k1, j0, j1): byte offsets of the two arrays, then element indices;
+   *  k1 − k0 and j1 − j0 even. */
+  kernel4x2: (
+    re: number,
+    im: number,
+    n: number,
+    i: number,
+    k0: number,
+    k1: number,
+    j0: number,
+    j1: number,
+  ) => void;
 }
 
 let cached: SimdKernel | null | undefined;
@@ -95,24 +108,25 @@ const f64x2sub = simd(0xf1);
 const f64x2mul = simd(0xf2);
 
 function buildModule(): Uint8Array<ArrayBuffer> {
-  // Parameters 0..6: re, im, n, i, k, j0, j1.
-  const [RE, IM, N, I, K, J0, J1] = [0, 1, 2, 3, 4, 5, 6];
-  // i32 locals.
-  const OFF = 7;
-  const END = 8;
-  const PA = [9, 10, 11, 12]; // &re[(i+r)·n]
-  const QA = [13, 14, 15, 16]; // &im[(i+r)·n]
-  const PU = [17, 18]; // &re[(k+p)·n]
-  const QU = [19, 20]; // &im[(k+p)·n]
+  // Parameters 0..7: re, im, n, i, k0, k1, j0, j1.
+  const [RE, IM, N, I, K, K1, J0, J1] = [0, 1, 2, 3, 4, 5, 6, 7];
+  // i32 locals (K is advanced in place by the pivot loop).
+  const OFF = 8;
+  const END = 9;
+  const OFF0 = 10;
+  const PA = [11, 12, 13, 14]; // &re[(i+r)·n]
+  const QA = [15, 16, 17, 18]; // &im[(i+r)·n]
+  const PU = [19, 20]; // &re[(k+p)·n]
+  const QU = [21, 22]; // &im[(k+p)·n]
   // v128 locals: the splatted multipliers L[i+r, k+p] and the loaded pivot-row pairs.
-  const L = (r: number, p: number, imag: number) => 21 + (r * 2 + p) * 2 + imag;
-  const U = (p: number, imag: number) => 37 + p * 2 + imag;
+  const L = (r: number, p: number, imag: number) => 23 + (r * 2 + p) * 2 + imag;
+  const U = (p: number, imag: number) => 39 + p * 2 + imag;
 
   const body: number[] = [];
   const emit = (...parts: number[][]) => {
     for (const p of parts) body.push(...p);
   };
-  emit(get(J0), i32c(3), i32shl, set(OFF), get(J1), i32c(3), i32shl, set(END));
+  emit(get(J0), i32c(3), i32shl, set(OFF0), get(J1), i32c(3), i32shl, set(END));
   // Row base addresses: byte offset ((row)·n)·8 from each array's start.
   const rowBase = (rowParam: number, add: number, arr: number, dst: number) =>
     emit(get(rowParam), i32c(add), i32add, get(N), i32mul, i32c(3), i32shl, get(arr), i32add, set(dst));
@@ -120,6 +134,8 @@ function buildModule(): Uint8Array<ArrayBuffer> {
     rowBase(I, r, RE, PA[r]);
     rowBase(I, r, IM, QA[r]);
   }
+  // block { if k ≥ k1: break; loop over pivot pairs { … k += 2; continue while k < k1 } }
+  emit([0x02, 0x40], get(K), get(K1), i32geu, [0x0d, 0], [0x03, 0x40]);
   for (let p = 0; p < 2; p++) {
     rowBase(K, p, RE, PU[p]);
     rowBase(K, p, IM, QU[p]);
@@ -131,8 +147,8 @@ function buildModule(): Uint8Array<ArrayBuffer> {
       emit(get(QA[r]), get(K), i32c(3), i32shl, i32add, load64splat(p * 8), set(L(r, p, 1)));
     }
   }
-  // block { if off >= end: break; loop { … off += 16; continue while off < end } }
-  emit([0x02, 0x40], get(OFF), get(END), i32geu, [0x0d, 0], [0x03, 0x40]);
+  // block { if off ≥ end: break; loop over column pairs { … off += 16; continue while off < end } }
+  emit(get(OFF0), set(OFF), [0x02, 0x40], get(OFF), get(END), i32geu, [0x0d, 0], [0x03, 0x40]);
   for (let p = 0; p < 2; p++) {
     emit(get(PU[p]), get(OFF), i32add, v128load(), set(U(p, 0)));
     emit(get(QU[p]), get(OFF), i32add, v128load(), set(U(p, 1)));
@@ -170,14 +186,15 @@ function buildModule(): Uint8Array<ArrayBuffer> {
     emit(f64x2sub, v128store());
   }
   emit(get(OFF), i32c(16), i32add, set(OFF), get(OFF), get(END), i32ltu, [0x0d, 0], [0x0b], [0x0b]);
+  emit(get(K), i32c(2), i32add, set(K), get(K), get(K1), i32ltu, [0x0d, 0], [0x0b], [0x0b]);
   body.push(0x0b); // end of function
 
   const locals = vec([
-    [...uleb(14), I32],
-    [...uleb(21), V128],
+    [...uleb(15), I32],
+    [...uleb(20), V128],
   ]);
   const func = [...locals, ...body];
-  const funcType = [0x60, ...vec([[I32], [I32], [I32], [I32], [I32], [I32], [I32]]), ...vec([])];
+  const funcType = [0x60, ...vec([[I32], [I32], [I32], [I32], [I32], [I32], [I32], [I32]]), ...vec([])];
   const bytes = [
     ...[0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00],
     ...section(1, vec([funcType])),

@@ -191,9 +191,11 @@ function rankUpdate(
     for (; i + ROWS <= i1; i += ROWS) {
       let k = kc;
       if (wk !== null) {
-        for (; k + PIVOTS <= kcEnd; k += PIVOTS) {
-          wk(0, wasmImOffset, n, i, k, j0, jEven);
-          if (jEven < j1) kernel4x2(re, im, n, i, k, jEven, j1);
+        const kPairs = kc + ((kcEnd - kc) & ~1);
+        if (kPairs > kc) {
+          wk(0, wasmImOffset, n, i, kc, kPairs, j0, jEven);
+          if (jEven < j1) for (; k < kPairs; k += PIVOTS) kernel4x2(re, im, n, i, k, jEven, j1);
+          k = kPairs;
         }
       } else {
         for (; k + PIVOTS <= kcEnd; k += PIVOTS) kernel4x2(re, im, n, i, k, j0, j1);
