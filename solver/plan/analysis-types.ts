@@ -137,6 +137,8 @@ export interface PlanAnalysis {
   mesh: MeshView;
   unknowns: number;
   segments: number;
+  /** Near-ground method the solver ran: "image" (perfect), "reflection" or "sommerfeld" (real ground). */
+  groundMethod: string;
   /** Free wire ends (current zero, so RF voltage at its peak on a resonant wire), per band, for the app's
    *  high-voltage marks and the later safety work. */
   highVoltagePoints: { elementId: string; wire: string; point: Vec3; band: BandName }[];

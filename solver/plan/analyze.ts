@@ -1,4 +1,5 @@
 import { findResonances } from "../analysis/resonance";
+import { AUTO_HEIGHT_WAVELENGTHS } from "../ground/real";
 import { prepareModel } from "../index";
 import { ModelError } from "../model/errors";
 import type { FrequencyResult } from "../model/types";
@@ -126,6 +127,23 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
   const bands: Band[] = plan.bands.map((b) => bandEdges(b, plan.ituRegion));
   const sweeps = bands.map((b) => linspace(b.lowMHz, b.highMHz, nPoints));
   const compiled = compilePlan(plan, { frequenciesMHz: sweeps.flat() });
+  // Live passes must answer in tens of milliseconds. Over real ground the rigorous (Sommerfeld) near
+  // interaction that "auto" picks whenever any wire is within 0.1 λ of the soil costs seconds per
+  // frequency, so a quick pass uses the reflection-coefficient method instead — but only when the fed
+  // antenna itself (with its radials) stays above 0.1 λ, so that the approximation touches parasitic
+  // metal near the ground (a grounded mast) and not the antenna being tuned. The full pass keeps the
+  // plan's method.
+  if (quick && compiled.model.ground.kind === "real" && (compiled.model.ground.method ?? "auto") === "auto") {
+    const lambdaMax = 299.792458 / Math.min(...bands.map((b) => b.lowMHz));
+    const lowest = Math.min(
+      ...compiled.model.wires
+        .filter((w) => compiled.wireElement[w.id]?.elementId === compiled.activeRunId)
+        .flatMap((w) => w.points.map((p) => p[2])),
+    );
+    if (lowest >= AUTO_HEIGHT_WAVELENGTHS * lambdaMax) {
+      compiled.model.ground = { ...compiled.model.ground, method: "reflection" };
+    }
+  }
   const prepared = solverStep(compiled, () => prepareModel(compiled.model, { patternStepDeg: 0 }));
   const run = activeRun(plan);
   const runWires = compiled.model.wires.filter(
@@ -207,6 +225,7 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
     mesh: prepared.mesh,
     unknowns: prepared.unknowns,
     segments: prepared.segments,
+    groundMethod: prepared.groundMethod,
     highVoltagePoints: results.flatMap((b) =>
       compiled.freeEnds.map((e) => ({ elementId: e.elementId, wire: e.wire, point: e.point, band: b.name })),
     ),

@@ -100,6 +100,7 @@ export function planGround(plan: Plan): GroundInput {
   if (g.preset !== undefined) out.preset = g.preset;
   if (g.conductivity !== undefined) out.conductivity = g.conductivity;
   if (g.permittivity !== undefined) out.permittivity = g.permittivity;
+  if (g.method !== undefined) out.method = g.method;
   return out;
 }
 

@@ -397,6 +397,13 @@ export const PlanGroundSchema = z.discriminatedUnion(
         permittivity: finite("relative permittivity")
           .refine((v) => v >= 1, { message: "expected a relative permittivity of at least 1" })
           .optional(),
+        /** Near-ground interaction method; default "auto" (rigorous when a wire is within 0.1 λ of the
+         *  soil). Quick (live) analyses always use "reflection". */
+        method: z
+          .enum(["auto", "reflection", "sommerfeld"], {
+            error: 'expected "auto", "reflection" or "sommerfeld"',
+          })
+          .optional(),
       })
       .strict(),
   ],
