@@ -108,15 +108,16 @@ export interface RemainderContext {
   h: HalfSpaceParams;
   kap: C;
   c: C[];
-  /** |k1| and Re k1. */
+  /** |k1|, Re k1 and Im k1 (rad/m). */
   k1Abs: number;
   k1Re: number;
+  k1Im: number;
 }
 
 export function remainderContext(h: HalfSpaceParams): RemainderContext {
-  const [k1r] = csqrt(h.k0 * h.k0 * h.epsRe, h.k0 * h.k0 * h.epsIm);
+  const [k1r, k1i] = csqrt(h.k0 * h.k0 * h.epsRe, h.k0 * h.k0 * h.epsIm);
   const k1Abs = h.k0 * Math.sqrt(Math.hypot(h.epsRe, h.epsIm));
-  return { h, kap: kappa(h), c: asymptoticConstants(h), k1Abs, k1Re: Math.abs(k1r) };
+  return { h, kap: kappa(h), c: asymptoticConstants(h), k1Abs, k1Re: Math.abs(k1r), k1Im: k1i };
 }
 
 // 8-point Gauss–Legendre on [−1, 1] (A&S Table 25.4).
@@ -142,46 +143,117 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
   const { h, kap, c } = ctx;
   const k0 = h.k0;
   const R = Math.hypot(rho, Z);
-  const acc = new Float64Array(10);
-  const amp: C[] = [
-    [0, 0],
-    [0, 0],
-    [0, 0],
-    [0, 0],
-  ];
-  // Accumulate one quadrature point: amplitudes (already × dλ/dt) times e^{−u0 Z} and Bessel factors,
-  // minus the asymptotes c·Jn·e^{−λZ}·dλ/dt, times weight w.
-  const point = (lam: number, u0: C, dl: number, dlOverU0: C, w: number) => {
-    amplitudes(h, kap, lam, u0, dl, dlOverU0, amp);
-    const ex = Math.exp(-u0[0] * Z);
-    const e: C = [ex * Math.cos(u0[1] * Z), -ex * Math.sin(u0[1] * Z)];
+  // Hot loop: scalar complex arithmetic, no allocation (the table calls this ~10³ times per frequency,
+  // each with a few thousand λ points).
+  const er = h.epsRe;
+  const ei = h.epsIm;
+  const k1r2 = k0 * k0 * er;
+  const k1i2 = k0 * k0 * ei;
+  const kr = kap[0];
+  const ki = kap[1];
+  const pr0 = 2 * (er - 1);
+  const pi0 = 2 * ei;
+  const c1r = c[0][0];
+  const c1i = c[0][1];
+  const c2r = c[1][0];
+  const c2i = c[1][1];
+  const c5r = c[2][0];
+  const c5i = c[2][1];
+  const c6r = c[3][0];
+  const c6i = c[3][1];
+  let a1r = 0;
+  let a1i = 0;
+  let a2r = 0;
+  let a2i = 0;
+  let a3r = 0;
+  let a3i = 0;
+  let a5r = 0;
+  let a5i = 0;
+  let a6r = 0;
+  let a6i = 0;
+  // One quadrature point; see amplitudes() for the formulas (kept there in readable form).
+  const point = (lam: number, u0r: number, u0i: number, dl: number, qr: number, qi: number, w: number) => {
+    // u1 = √(λ² − k1²), Re ≥ 0
+    const sr = lam * lam - k1r2;
+    const si = -k1i2;
+    const m = Math.hypot(sr, si);
+    const u1r = Math.sqrt((m + sr) / 2);
+    let u1i = Math.sqrt(Math.max(0, (m - sr) / 2));
+    if (si < 0) u1i = -u1i;
+    // ε u0
+    const eur = er * u0r - ei * u0i;
+    const eui = er * u0i + ei * u0r;
+    // R_V = (εu0 − u1)/(εu0 + u1)
+    const dvr = eur + u1r;
+    const dvi = eui + u1i;
+    const dv2 = dvr * dvr + dvi * dvi;
+    const nvr = eur - u1r;
+    const nvi = eui - u1i;
+    const rvr = (nvr * dvr + nvi * dvi) / dv2 - kr;
+    const rvi = (nvi * dvr - nvr * dvi) / dv2 - ki;
+    // R_H = (u0 − u1)/(u0 + u1)
+    const dhr = u0r + u1r;
+    const dhi = u0i + u1i;
+    const dh2 = dhr * dhr + dhi * dhi;
+    const nhr = u0r - u1r;
+    const nhi = u0i - u1i;
+    const rhr = (nhr * dhr + nhi * dhi) / dh2 + kr;
+    const rhi = (nhi * dhr - nhr * dhi) / dh2 + ki;
+    // P = 2(ε − 1)/(dv·dh)
+    const ddr = dvr * dhr - dvi * dhi;
+    const ddi = dvr * dhi + dvi * dhr;
+    const dd2 = ddr * ddr + ddi * ddi;
+    const Pr = (pr0 * ddr + pi0 * ddi) / dd2;
+    const Pi = (pi0 * ddr - pr0 * ddi) / dd2;
+    // R̂_H·q and R̂_V·q, q = (dλ/dt)/u0
+    const hqr = rhr * qr - rhi * qi;
+    const hqi = rhr * qi + rhi * qr;
+    const vqr = rvr * qr - rvi * qi;
+    const vqi = rvr * qi + rvi * qr;
+    // D̂ dλ = R̂_H q − u0 P dλ
+    const dr = hqr - (u0r * Pr - u0i * Pi) * dl;
+    const di = hqi - (u0r * Pi + u0i * Pr) * dl;
+    const l2 = lam * lam;
+    const l3 = l2 * lam;
+    // e^{−u0 Z}
+    const ex = Math.exp(-u0r * Z);
+    const er0 = ex * Math.cos(u0i * Z);
+    const ei0 = -ex * Math.sin(u0i * Z);
     const es = Math.exp(-lam * Z) * dl;
     const x = lam * rho;
-    const j0 = besselJ0(x);
-    const j1 = besselJ1(x);
-    const j2 = besselJ2(x);
-    const terms: [C, C, number][] = [
-      [amp[0], c[0], j0],
-      [amp[1], c[1], j0],
-      [amp[1], c[1], j2],
-      [amp[2], c[2], j0],
-      [amp[3], c[3], j1],
-    ];
-    for (let i = 0; i < 5; i++) {
-      const [a, ci, jn] = terms[i];
-      const v = mul(a, e);
-      acc[2 * i] += w * jn * (v[0] - ci[0] * es);
-      acc[2 * i + 1] += w * jn * (v[1] - ci[1] * es);
-    }
+    const j0 = besselJ0(x) * w;
+    const j1 = besselJ1(x) * w;
+    const j2 = besselJ2(x) * w;
+    // amplitude × e, minus asymptote × e^{−λZ}
+    let vr = lam * (hqr * er0 - hqi * ei0);
+    let vi = lam * (hqr * ei0 + hqi * er0);
+    a1r += j0 * (vr - c1r * es);
+    a1i += j0 * (vi - c1i * es);
+    vr = l3 * (dr * er0 - di * ei0) - c2r * es;
+    vi = l3 * (dr * ei0 + di * er0) - c2i * es;
+    a2r += j0 * vr;
+    a2i += j0 * vi;
+    a3r += j2 * vr;
+    a3i += j2 * vi;
+    vr = l3 * (vqr * er0 - vqi * ei0);
+    vi = l3 * (vqr * ei0 + vqi * er0);
+    a5r += j0 * (vr - c5r * es);
+    a5i += j0 * (vi - c5i * es);
+    vr = l2 * dl * (rvr * er0 - rvi * ei0);
+    vi = l2 * dl * (rvr * ei0 + rvi * er0);
+    a6r += j1 * (vr - c6r * es);
+    a6i += j1 * (vi - c6i * es);
   };
   const scaleLen = Math.max(rho, Z, 1e-9 / k0);
+  // Grading toward k0 stops well inside the distance of R_V's pole from it, ≈ k0/(2|ε_c|).
+  const floorRel = Math.min(1e-4, 0.01 / Math.hypot(h.epsRe, h.epsIm));
 
   // Segment A: λ = k0 sin t, t ∈ [0, π/2]; u0 = j k0 cos t, dλ = k0 cos t dt, dλ/u0 = −j dt.
   {
     const nA = Math.ceil((k0 * (rho + Z)) / 1.5) + 1;
     const bp: number[] = [];
     for (let i = 0; i <= nA; i++) bp.push(((Math.PI / 2) * i) / nA);
-    graded(Math.PI / 2, Math.PI / 2 / nA / 2, 1e-7, -1, bp);
+    graded(Math.PI / 2, Math.PI / 2 / nA / 2, Math.sqrt(2 * floorRel), -1, bp);
     bp.sort((a, b) => a - b);
     for (let p = 0; p + 1 < bp.length; p++) {
       const a = bp[p];
@@ -191,7 +263,7 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
       for (let g = 0; g < 8; g++) {
         const t = a + hw * (1 + GX[g]);
         const ct = Math.cos(t);
-        point(k0 * Math.sin(t), [0, k0 * ct], k0 * ct, [0, -1], GW[g] * hw);
+        point(k0 * Math.sin(t), 0, k0 * ct, k0 * ct, 0, -1, GW[g] * hw);
       }
     }
   }
@@ -202,12 +274,13 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
   const lamB = Math.min(1.5 * ctx.k1Abs + 2 * k0, cut);
   {
     const lbp: number[] = [k0, lamB];
-    graded(k0, 0.5 * k0, 1e-7 * k0, 1, lbp);
+    graded(k0, 0.5 * k0, floorRel * k0, 1, lbp);
     if (ctx.k1Re > k0 && ctx.k1Re < lamB) {
       const kr = ctx.k1Re;
       lbp.push(kr);
-      graded(kr, 0.5 * Math.min(kr - k0, lamB - kr), 1e-7 * k0, 1, lbp);
-      graded(kr, 0.5 * Math.min(kr - k0, lamB - kr), 1e-7 * k0, -1, lbp);
+      const floorK1 = Math.max(1e-7 * k0, 0.05 * Math.abs(ctx.k1Im));
+      graded(kr, 0.5 * Math.min(kr - k0, lamB - kr), floorK1, 1, lbp);
+      graded(kr, 0.5 * Math.min(kr - k0, lamB - kr), floorK1, -1, lbp);
     }
     // Oscillation of Jn(λρ) and e^{−u0 Z}: at most 1.5 rad per panel; geometric growth where ρ is small.
     for (let l = 1.5 * k0; l < lamB; ) {
@@ -223,7 +296,7 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
       for (let g = 0; g < 8; g++) {
         const t = a + hw * (1 + GX[g]);
         const st = k0 * Math.sinh(t);
-        point(k0 * Math.cosh(t), [st, 0], st, [1, 0], GW[g] * hw);
+        point(k0 * Math.cosh(t), st, 0, st, 1, 0, GW[g] * hw);
       }
     }
   }
@@ -236,7 +309,7 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
       for (let g = 0; g < 8; g++) {
         const lam = a + hw * (1 + GX[g]);
         const u0 = Math.sqrt(lam * lam - k0 * k0);
-        point(lam, [u0, 0], 1, [1 / u0, 0], GW[g] * hw);
+        point(lam, u0, 0, 1, 1 / u0, 0, GW[g] * hw);
       }
       a += width;
     }
@@ -245,10 +318,14 @@ export function remainderIntegrals(ctx: RemainderContext, rho: number, Z: number
   const L0 = 1 / R;
   const L1 = rho / ((R + Z) * R);
   const L2 = (rho * rho) / ((R + Z) * (R + Z) * R);
-  const Ls = [L0, L0, L2, L0, L1];
-  const cs = [c[0], c[1], c[1], c[2], c[3]];
-  for (let i = 0; i < 5; i++) {
-    out[2 * i] = acc[2 * i] + cs[i][0] * Ls[i];
-    out[2 * i + 1] = acc[2 * i + 1] + cs[i][1] * Ls[i];
-  }
+  out[0] = a1r + c1r * L0;
+  out[1] = a1i + c1i * L0;
+  out[2] = a2r + c2r * L0;
+  out[3] = a2i + c2i * L0;
+  out[4] = a3r + c2r * L2;
+  out[5] = a3i + c2i * L2;
+  out[6] = a5r + c5r * L0;
+  out[7] = a5i + c5i * L0;
+  out[8] = a6r + c6r * L1;
+  out[9] = a6i + c6i * L1;
 }

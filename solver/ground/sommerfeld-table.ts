@@ -7,7 +7,7 @@
  * behaves like 1/R′ at the image point and like a wave e^{−jk0R′}/R′ far away, so F is smooth in both
  * directions and bicubic (4 × 4 Lagrange) interpolation on a modest grid reproduces it. Below the first
  * node R′ is clamped (F tends to a function of θ′ alone there). R′ nodes: geometric near the image,
- * then uniform at λ/30; θ′ nodes clustered toward grazing, where the ground-wave part varies fastest.
+ * then uniform at λ/20; θ′ nodes clustered toward grazing, where the ground-wave part varies fastest.
  */
 import {
   type HalfSpaceParams,
@@ -32,9 +32,9 @@ export interface TableOptions {
   rMax: number;
   /** Smallest R′ worth resolving, metres (default λ/5000). */
   rMin?: number;
-  /** Uniform R′ spacing far out, in wavelengths (default 1/30). */
+  /** Uniform R′ spacing far out, in wavelengths (default 1/20). */
   stepWavelengths?: number;
-  /** θ′ node count (default 21). */
+  /** θ′ node count (default 15). */
   thetaNodes?: number;
 }
 
@@ -42,15 +42,15 @@ export function buildSommerfeldTable(h: HalfSpaceParams, opt: TableOptions): Som
   const ctx = remainderContext(h);
   const lambda = (2 * Math.PI) / h.k0;
   const rMin = opt.rMin ?? lambda / 5000;
-  const step = (opt.stepWavelengths ?? 1 / 30) * lambda;
+  const step = (opt.stepWavelengths ?? 1 / 20) * lambda;
   const rs: number[] = [rMin];
   while (rs[rs.length - 1] < opt.rMax) {
     const last = rs[rs.length - 1];
-    rs.push(last + Math.min(step, 0.3 * last));
+    rs.push(last + Math.min(step, 0.5 * last));
   }
   // Enough nodes past rMax for the cubic stencil to stay centred.
-  for (let i = 0; i < 2; i++) rs.push(rs[rs.length - 1] + Math.min(step, 0.3 * rs[rs.length - 1]));
-  const nT = opt.thetaNodes ?? 21;
+  for (let i = 0; i < 2; i++) rs.push(rs[rs.length - 1] + Math.min(step, 0.5 * rs[rs.length - 1]));
+  const nT = opt.thetaNodes ?? 15;
   const ts: number[] = [];
   for (let i = 0; i < nT; i++) ts.push((Math.PI / 2) * Math.sin((Math.PI / 2) * (i / (nT - 1))));
   const data = new Float64Array(rs.length * nT * 10);
