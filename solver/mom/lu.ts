@@ -60,7 +60,14 @@ function onFastestArrays(
   // The JS parts of the algorithm see the copy through typed-array views.
   const nn = n * n;
   const need = Math.ceil((16 * nn) / 65536) - simd.memory.buffer.byteLength / 65536;
-  if (need > 0) simd.memory.grow(need);
+  if (need > 0) {
+    try {
+      simd.memory.grow(need);
+    } catch {
+      work(re, im); // no room for the copy (memory limit): the in-place JS kernel still works
+      return;
+    }
+  }
   const wr = new Float64Array(simd.memory.buffer, 0, nn);
   const wi = new Float64Array(simd.memory.buffer, 8 * nn, nn);
   wr.set(re.subarray(0, nn));
