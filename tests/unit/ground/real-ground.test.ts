@@ -57,6 +57,37 @@ describe("real ground in the solver", () => {
     expect(r.efficiency).toBeLessThan(0.9);
   }, 60_000);
 
+  // Same balance for a wire slanted at 45°, low over the ground: exercises the vertical and the
+  // horizontal–vertical cross terms of the reflected dyadic, which a horizontal dipole never touches.
+  it("closes the power balance for a slanted wire (Sommerfeld)", () => {
+    const L = 0.48 * LAMBDA;
+    const z0 = 0.05 * LAMBDA;
+    const r = solve1(
+      {
+        wires: [
+          {
+            id: "s",
+            points: [
+              [0, 0, z0],
+              [L / Math.SQRT2, 0, z0 + L / Math.SQRT2],
+            ],
+            radius: 0.001,
+            segments: 22,
+          },
+        ],
+        feed: { wire: "s", at: 0.5 },
+        ground: { ...AVERAGE, method: "sommerfeld" },
+        frequenciesMHz: [MHZ],
+      },
+      2,
+    );
+    const ground = groundLossWatts(r.mesh, r.segmentCurrents, MHZ * 1e6, {
+      permittivity: 13,
+      conductivity: 0.005,
+    });
+    expect(Math.abs(r.power.radiated + ground + r.power.wireLoss - r.power.accepted)).toBeLessThan(0.01);
+  }, 60_000);
+
   // Issue requirement: where both methods are valid (about 0.25 λ up) they agree — impedance within 3 %,
   // peak gain within 0.3 dB.
   it("reflection and Sommerfeld agree for a dipole a quarter wave up", () => {
