@@ -19,11 +19,20 @@ function Status() {
   const failure = useApp((s) => s.failure);
   const result = useApp((s) => s.result);
   const plan = useApp((s) => s.plan);
+  const revision = useApp((s) => s.revision);
+  // Revisions as attributes: the bench and the browser tests match a shown result to the plan it is for.
+  const revisions = { "data-plan-revision": revision, "data-result-revision": result?.revision ?? -1 };
   if (state === "failed" && failure) {
     const f = failure.failure;
     const target = findElement(plan, f.elementId);
     return (
-      <div className="status status-error" role="alert" data-testid="analysis-status" data-state="failed">
+      <div
+        className="status status-error"
+        role="alert"
+        data-testid="analysis-status"
+        data-state="failed"
+        {...revisions}
+      >
         <strong>This plan can’t be analysed.</strong> {f.message}
         {target && (
           <button type="button" className="link" onClick={() => store.getState().select(target.id)}>
@@ -48,6 +57,7 @@ function Status() {
       data-testid="analysis-status"
       data-state={state}
       aria-live="polite"
+      {...revisions}
     >
       {text} {busy && <span className="busy">{busy}</span>}
     </div>

@@ -1,4 +1,5 @@
-import { Canvas, type ThreeEvent } from "@react-three/fiber";
+import { Canvas, type ThreeEvent, useThree } from "@react-three/fiber";
+import { useEffect } from "react";
 import * as THREE from "three";
 import { sketchRun } from "../plan/geometry";
 import { freshness } from "../store/analysis-slice";
@@ -14,6 +15,28 @@ import { Wires } from "./Wires";
 
 // The plan frame is z-up (x east, y north); draw in it directly so no coordinate ever needs swapping.
 THREE.Object3D.DEFAULT_UP.set(0, 0, 1);
+
+/**
+ * Lets browser tests and the bench find things on screen: projects a plan point to page pixels.
+ * Read-only; it changes nothing in the store.
+ */
+function ScreenProbe() {
+  const { camera, gl } = useThree();
+  useEffect(() => {
+    const w = window as unknown as { __yardProbe?: unknown };
+    w.__yardProbe = {
+      project: (x: number, y: number, z: number) => {
+        const v = new THREE.Vector3(x, y, z).project(camera);
+        const r = gl.domElement.getBoundingClientRect();
+        return [r.left + ((v.x + 1) / 2) * r.width, r.top + ((1 - v.y) / 2) * r.height];
+      },
+    };
+    return () => {
+      w.__yardProbe = undefined;
+    };
+  }, [camera, gl]);
+  return null;
+}
 
 function Contents() {
   const store = useAppStore();
@@ -44,6 +67,7 @@ function Contents() {
       <hemisphereLight args={["#ffffff", "#8a9a7a", 1.6]} />
       <directionalLight position={[-20, -30, 40]} intensity={1.4} />
       <CameraRig centre={[b.cx, b.cy]} size={b.size} />
+      <ScreenProbe />
       <Ground plan={plan} onGroundPointer={onGround} />
       <Hazards plan={plan} />
       <Supports plan={plan} />
@@ -82,7 +106,7 @@ export function Yard() {
         frameloop="demand"
         dpr={[1, 2]}
         camera={{ fov: 45, near: 0.1, far: 2000, up: [0, 0, 1], position: [-20, -40, 25] }}
-        gl={{ preserveDrawingBuffer: true, antialias: true }}
+        gl={{ antialias: true }}
         onPointerMissed={() => undefined}
       >
         <Contents />

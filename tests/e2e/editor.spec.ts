@@ -21,14 +21,18 @@ test("opens on the demo plan with results, and logs no console errors", async ({
 
 test("the 3D canvas renders a picture, not a blank", async ({ page }) => {
   await openDemo(page);
-  // Read the WebGL canvas back (it keeps its drawing buffer) and measure how much the pixels vary.
-  const stats = await page.evaluate(() => {
-    const gl = document.querySelector("canvas") as HTMLCanvasElement;
+  // Screenshot the canvas as the page shows it, decode the PNG in the page, and measure how much the
+  // pixels vary (a blank or cleared canvas is one flat colour).
+  const png = (await page.locator("canvas").screenshot()).toString("base64");
+  const stats = await page.evaluate(async (b64) => {
+    const img = new Image();
+    img.src = `data:image/png;base64,${b64}`;
+    await img.decode();
     const c = document.createElement("canvas");
     c.width = 200;
     c.height = 150;
     const ctx = c.getContext("2d")!;
-    ctx.drawImage(gl, 0, 0, c.width, c.height);
+    ctx.drawImage(img, 0, 0, c.width, c.height);
     const d = ctx.getImageData(0, 0, c.width, c.height).data;
     let sum = 0;
     let sum2 = 0;
@@ -40,8 +44,8 @@ test("the 3D canvas renders a picture, not a blank", async ({ page }) => {
       colours.add((d[i] >> 4) * 256 + (d[i + 1] >> 4) * 16 + (d[i + 2] >> 4));
     }
     const n = d.length / 4;
-    return { std: Math.sqrt(sum2 / n - (sum / n) ** 2), colours: colours.size, w: gl.width, h: gl.height };
-  });
+    return { std: Math.sqrt(sum2 / n - (sum / n) ** 2), colours: colours.size, w: img.width, h: img.height };
+  }, png);
   expect(stats.w).toBeGreaterThan(300);
   // A blank or single-colour canvas has std ≈ 0 and a handful of colours; the yard has far more.
   expect(stats.std).toBeGreaterThan(8);
