@@ -26,6 +26,7 @@ import { EPS0 } from "./fresnel";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 import type { ResolvedRealGround } from "./presets";
 import { type ReflectionWeights, reflectionPairTerms } from "./reflection";
+import type { HalfSpaceParams } from "./sommerfeld-integrals";
 import {
   buildSommerfeldTable,
   contractRemainder,
@@ -125,6 +126,7 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
   let k = 0;
   let omega = 0;
   let table: SommerfeldTable | undefined;
+  let tableParams: HalfSpaceParams = { k0: 0, epsRe: 1, epsIm: 0 };
   let kapRe = 1;
   let kapIm = 0;
   const rMax = maxImageDistance(setup) * 1.02 + 1e-6;
@@ -171,7 +173,8 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
     out[8] -= kapRe * j[0] - kapIm * j[1];
     out[9] -= kapRe * j[1] + kapIm * j[0];
     // Remainder at Gauss points.
-    const t = table as SommerfeldTable;
+    table ??= buildSommerfeldTable(tableParams, { rMax });
+    const t = table;
     const p3 = 3 * p;
     const q3 = 3 * q;
     const lp = P.len[p];
@@ -214,6 +217,9 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
     connectsAtZ0: true,
     symmetric: true,
     hasPairTerms: true,
+    // Reflected terms are image-like (e^{−jkR̃} times factors slow in frequency: Fresnel weights, κ, the
+    // tabulated remainder), so band sweeps may interpolate them (solver/mom/interpolate.ts).
+    interpolable: true,
     beginFrequency(f: GroundFrequency) {
       k = f.k;
       omega = f.omega;
@@ -232,7 +238,10 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
         const d = dr * dr + epsIm * epsIm;
         kapRe = (nr * dr + epsIm * epsIm) / d;
         kapIm = (epsIm * dr - nr * epsIm) / d;
-        table = buildSommerfeldTable({ k0: k, epsRe: permittivity, epsIm }, { rMax });
+        // Built on first use: a band sweep calls beginFrequency at every point but fills (and so needs
+        // the table) only at the three frequencies it interpolates from.
+        table = undefined;
+        tableParams = { k0: k, epsRe: permittivity, epsIm };
       }
     },
     pairTerms(p: number, q: number, out: Float64Array) {
