@@ -6,14 +6,15 @@
  *   vector: −(t̂_p·t̂_q̃) J̃_ab,   scalar: −J̃_00,   t̂_q̃ = (t_x, t_y, −t_z).
  * Over a perfect ground every z = 0 end is an ideal connection.
  */
-import { pairIntegrals } from "../mom/pair-integrals";
+import { findRuns, PairCache } from "../mom/pair-cache";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 
 export function perfectGround(setup: GroundSetup): GroundKernel {
   const P = setup.segments;
   const M = setup.mirrored;
   const j = new Float64Array(8);
-  let k = 0;
+  // Image pairs repeat along straight runs too (Toeplitz for horizontal runs, Hankel for vertical).
+  const cache = new PairCache(P, M, findRuns(P, setup.wireOfSegment));
   return {
     method: "image",
     connectsAtZ0: true,
@@ -21,10 +22,10 @@ export function perfectGround(setup: GroundSetup): GroundKernel {
     hasPairTerms: true,
     interpolable: true,
     beginFrequency(f: GroundFrequency) {
-      k = f.k;
+      cache.begin(f.k);
     },
     pairTerms(p: number, q: number, out: Float64Array) {
-      pairIntegrals(P, p, M, q, k, j);
+      cache.get(p, q, j);
       const dot =
         P.dir[3 * p] * M.dir[3 * q] +
         P.dir[3 * p + 1] * M.dir[3 * q + 1] +

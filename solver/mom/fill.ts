@@ -11,7 +11,7 @@
 
 import type { Mesh } from "../geometry/types";
 import type { GroundFrequency, GroundKernel } from "../ground/kernel";
-import { pairIntegrals } from "./pair-integrals";
+import { findRuns, PairCache } from "./pair-cache";
 
 export interface FillScratch {
   j: Float64Array;
@@ -22,9 +22,12 @@ export interface FillScratch {
   basis: Int32Array;
   atEnd: Uint8Array;
   sign: Float64Array;
+  /** Free-space pair integrals shared along straight evenly cut runs. */
+  cache: PairCache;
 }
 
-export function makeFillScratch(mesh: Mesh): FillScratch {
+/** `reusePairs: false` turns the run cache off (tests compare both ways). */
+export function makeFillScratch(mesh: Mesh, reusePairs = true): FillScratch {
   const np = mesh.segPieces.length;
   const basis = new Int32Array(np);
   const atEnd = new Uint8Array(np);
@@ -35,7 +38,16 @@ export function makeFillScratch(mesh: Mesh): FillScratch {
     atEnd[i] = mesh.pieceAtEnd[pc];
     sign[i] = mesh.pieceSign[pc];
   }
-  return { j: new Float64Array(8), g: new Float64Array(10), c: new Float64Array(10), basis, atEnd, sign };
+  const cache = new PairCache(mesh.segs, mesh.segs, findRuns(mesh.segs, mesh.view.wireOfSegment), reusePairs);
+  return {
+    j: new Float64Array(8),
+    g: new Float64Array(10),
+    c: new Float64Array(10),
+    basis,
+    atEnd,
+    sign,
+    cache,
+  };
 }
 
 /** Which terms to fill: both, only the free-space kernel, or only the ground's reflected terms. */
@@ -64,11 +76,12 @@ export function fillMatrix(
   const groundInLoop = withGround && ground.symmetric;
   const withFree = parts !== "ground";
   if (!withFree) J.fill(0); // ground-only fill: the free-space integrals stay zero
+  w.cache.begin(k);
   for (let p = 0; p < nSeg && (withFree || groundInLoop); p++) {
     if (sps[p] === sps[p + 1]) continue;
     for (let q = p; q < nSeg; q++) {
       if (sps[q] === sps[q + 1]) continue;
-      if (withFree) pairIntegrals(S, p, S, q, k, J);
+      if (withFree) w.cache.get(p, q, J);
       for (let i = 0; i < 10; i++) G[i] = 0;
       if (groundInLoop) ground.pairTerms(p, q, G);
       combine(S.dir, p, q, J, G, k, f.eta, w.c);

@@ -31,7 +31,7 @@ export const NEAR_RATIO = 1.6;
 /** Beyond this distance/length ratio the separable far-pair form (farPair) is enough: its error is
  *  O((ℓ/d)²) relative, smooth in position, so the charge cancellations of neighbouring pieces stay
  *  consistent. */
-export const FAR_RATIO = 20;
+export const FAR_RATIO = 20.5;
 
 export function pairIntegrals(
   P: SegmentSet,
@@ -60,7 +60,7 @@ export function pairIntegrals(
       farPair(P, p, Q, q, k, a2, out);
       return;
     }
-    const r = d < 4 * h ? G5 : d < 10 * h ? G3 : G2;
+    const r = d < 4.3 * h ? G5 : d < 10.3 * h ? G3 : G2;
     directPair(P, p, Q, q, k, a2, r, out);
   }
 }
