@@ -142,6 +142,27 @@ export const computeFarField: FarFieldFn = (req) => {
   radiated *= 2 * Math.PI;
 
   const gainOf = (4 * Math.PI) / req.acceptedWatts;
+  // Ties (a horizontal dipole in free space peaks on a whole ring): take the direction within 1e-6 of
+  // the maximum (above the ~1e-9 table-interpolation noise) nearest the horizon, then the smallest bearing, so the answer is stable.
+  const tie = uMax * (1 - 1e-8);
+  const horizonRow = grid.horizon - first;
+  for (let d = 0; d < rows; d++) {
+    const candidates = overGround || d === 0 ? [horizonRow + d] : [horizonRow + d, horizonRow - d];
+    let found = -1;
+    for (const row of candidates) {
+      if (row < 0 || row >= rows) continue;
+      for (let j = 0; j < nB; j++) {
+        if (u[row * nB + j] >= tie && (found < 0 || j < found % nB)) {
+          found = row * nB + j;
+          break;
+        }
+      }
+    }
+    if (found >= 0) {
+      peak = found;
+      break;
+    }
+  }
   const peakRow = Math.floor(peak / nB);
   const peakCol = peak % nB;
   const gainAt = (row: number, col: number) => toDb(gainOf * u[row * nB + col]);
@@ -151,7 +172,6 @@ export const computeFarField: FarFieldFn = (req) => {
   const backCol = (peakCol + perHalf) % nB;
   const elevAngles: number[] = [];
   const elevGains: number[] = [];
-  const horizonRow = grid.horizon - first;
   const lastA = overGround ? 180 : 270;
   const steps = Math.round((lastA - (overGround ? 0 : -90)) / step);
   for (let s = 0; s <= steps; s++) {
