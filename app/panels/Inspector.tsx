@@ -77,7 +77,8 @@ export function Inspector() {
           label={def.label}
           unit={unit}
           value={n === undefined ? undefined : toDisplay(n, unit)}
-          digits={unit === "ft" ? 1 : 2}
+          // Small things (wire and pole diameters) need more places than heights do.
+          digits={n !== undefined && n > 0 && n < 0.3 ? 3 : unit === "ft" ? 1 : 2}
           step={def.step ? toDisplay(def.step, unit) : 0.1}
           min={def.min !== undefined ? toDisplay(def.min, unit) : undefined}
           testId={testId}

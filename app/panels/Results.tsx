@@ -270,6 +270,11 @@ function Cautions({ analysis }: { analysis: PlanAnalysis | null }) {
 /** The answers, at a glance: status, headline, figures, charts, warnings, safety. */
 export function Results() {
   const result = useApp((s) => s.result);
+  // While dragging, every figure lags the pointer by one solve; dim only results that are really old.
+  const old = useApp((s) => {
+    const f = freshness(s);
+    return f === "failed" || (f === "stale" && s.gestureOrigin === null && s.running === null);
+  });
   const [bandIndex, setBandIndex] = useState(0);
   const analysis = result?.analysis ?? null;
   const band = analysis?.bands[Math.min(bandIndex, analysis.bands.length - 1)];
@@ -292,7 +297,12 @@ export function Results() {
           ))}
         </div>
       )}
-      {analysis && band && <BandResults analysis={analysis} band={band} />}
+      {analysis && band && (
+        // Figures for an older plan stay readable but dimmed, under the status line that says so.
+        <div className={old ? "results-old" : undefined}>
+          <BandResults analysis={analysis} band={band} />
+        </div>
+      )}
       {analysis && (
         <>
           <h3>Warnings</h3>
