@@ -33,25 +33,28 @@ export function basisCentres(mesh: Mesh): Float64Array {
 
 interface Part {
   kind: "free" | "ground";
-  /** Quadratic coefficients in x = (f − f0)/h, split re/im: c0 + c1 x + c2 x². */
-  c: Float64Array[];
-  /** Phase distance per entry. */
+  /** Phase distance per upper-triangle entry (row-major packed, j ≥ i). */
   R: Float64Array;
-  /** e^{−jkR} at the last frequency served, and the rotation e^{−jΔkR} of the last step. */
-  phR: Float64Array;
-  phI: Float64Array;
-  rotR: Float64Array;
-  rotI: Float64Array;
+  /**
+   * Per packed entry, interleaved (stride 10) so one pass streams through memory:
+   * [c0 re, c0 im, c1 re, c1 im, c2 re, c2 im, e^{−jkR} re, im, e^{−jΔkR} re, im]
+   * with the quadratic c0 + c1 x + c2 x² in x = (f − f0)/h.
+   */
+  d: Float64Array;
 }
+
+const STRIDE = 10;
 
 /**
  * Built once per prepared model (buffers and phase distances are frequency independent), then
- * `fit(fLo, fHi)` per band: three fills per part, no allocation.
+ * `fit(fLo, fHi)` per band: three fills per part, no allocation. Z is symmetric, so only the upper
+ * triangle is stored and interpolated.
  */
 export class BandInterpolator {
   fLo = Number.NaN;
   fHi = Number.NaN;
   private readonly n: number;
+  private readonly nUpper: number;
   private f0 = Number.NaN;
   private h = Number.NaN;
   private readonly parts: Part[] = [];
@@ -65,38 +68,30 @@ export class BandInterpolator {
   ) {
     const n = mesh.nBasis;
     this.n = n;
+    this.nUpper = (n * (n + 1)) / 2;
     const centres = basisCentres(mesh);
     const kinds: ("free" | "ground")[] = ground.hasPairTerms ? ["free", "ground"] : ["free"];
-    const n2 = n * n;
     for (const kind of kinds) {
-      const R = new Float64Array(n2);
+      const R = new Float64Array(this.nUpper);
+      let t = 0;
       for (let a = 0; a < n; a++) {
-        for (let b = 0; b < n; b++) {
+        for (let b = a; b < n; b++, t++) {
           const dx = centres[3 * a] - centres[3 * b];
           const dy = centres[3 * a + 1] - centres[3 * b + 1];
           const dz =
             kind === "free"
               ? centres[3 * a + 2] - centres[3 * b + 2]
               : centres[3 * a + 2] + centres[3 * b + 2];
-          R[a * n + b] = Math.sqrt(dx * dx + dy * dy + dz * dz);
+          R[t] = Math.sqrt(dx * dx + dy * dy + dz * dz);
         }
       }
-      const c = Array.from({ length: 6 }, () => new Float64Array(n2));
-      this.parts.push({
-        kind,
-        c,
-        R,
-        phR: new Float64Array(n2),
-        phI: new Float64Array(n2),
-        rotR: new Float64Array(n2),
-        rotI: new Float64Array(n2),
-      });
+      this.parts.push({ kind, R, d: new Float64Array(STRIDE * this.nUpper) });
     }
   }
 
   /** Fit the band [fLo, fHi] (Hz) from full fills at its ends and middle; zr/zi/scratch are work space. */
   fit(fLo: number, fHi: number, scratch: FillScratch, zr: Float64Array, zi: Float64Array): void {
-    const n2 = this.n * this.n;
+    const n = this.n;
     this.fLo = fLo;
     this.fHi = fHi;
     this.f0 = 0.5 * (fLo + fHi);
@@ -104,8 +99,7 @@ export class BandInterpolator {
     this.lastK = Number.NaN;
     this.lastDk = Number.NaN;
     for (const part of this.parts) {
-      const [c0r, c0i, c1r, c1i, c2r, c2i] = part.c;
-      const R = part.R;
+      const { R, d } = part;
       // Samples s(x) of f·Z·e^{+jkR} at x = −1, 0, 1: c0 = s0, c1 = (s1 − s−1)/2, c2 = (s1 + s−1)/2 − s0.
       // s−1 is parked in c2 and s0 in c0 until s1 arrives.
       for (const x of [-1, 0, 1]) {
@@ -115,23 +109,28 @@ export class BandInterpolator {
         const fr = { frequencyHz: f, omega, k, eta: ETA0 };
         this.ground.beginFrequency(fr);
         fillMatrix(this.mesh, this.ground, fr, zr, zi, scratch, part.kind);
-        for (let i = 0; i < n2; i++) {
-          const ph = k * R[i];
-          const c = Math.cos(ph) * f;
-          const s = Math.sin(ph) * f;
-          const sr = zr[i] * c - zi[i] * s;
-          const si = zr[i] * s + zi[i] * c;
-          if (x === -1) {
-            c2r[i] = sr;
-            c2i[i] = si;
-          } else if (x === 0) {
-            c0r[i] = sr;
-            c0i[i] = si;
-          } else {
-            c1r[i] = 0.5 * (sr - c2r[i]);
-            c1i[i] = 0.5 * (si - c2i[i]);
-            c2r[i] = 0.5 * (sr + c2r[i]) - c0r[i];
-            c2i[i] = 0.5 * (si + c2i[i]) - c0i[i];
+        let t = 0;
+        for (let a = 0; a < n; a++) {
+          for (let b = a; b < n; b++, t++) {
+            const i = a * n + b;
+            const ph = k * R[t];
+            const c = Math.cos(ph) * f;
+            const sn = Math.sin(ph) * f;
+            const sr = zr[i] * c - zi[i] * sn;
+            const si = zr[i] * sn + zi[i] * c;
+            const o = STRIDE * t;
+            if (x === -1) {
+              d[o + 4] = sr;
+              d[o + 5] = si;
+            } else if (x === 0) {
+              d[o] = sr;
+              d[o + 1] = si;
+            } else {
+              d[o + 2] = 0.5 * (sr - d[o + 4]);
+              d[o + 3] = 0.5 * (si - d[o + 5]);
+              d[o + 4] = 0.5 * (sr + d[o + 4]) - d[o];
+              d[o + 5] = 0.5 * (si + d[o + 5]) - d[o + 1];
+            }
           }
         }
       }
@@ -145,49 +144,56 @@ export class BandInterpolator {
    * trigonometry runs only for the first point and when the step changes.
    */
   matrixAt(f: number, zr: Float64Array, zi: Float64Array): void {
-    const n2 = this.n * this.n;
+    const n = this.n;
     const x = (f - this.f0) / this.h;
     const x2 = x * x;
     const k = (2 * Math.PI * f) / C0;
     const invF = 1 / f;
     const dk = k - this.lastK;
     const mode = Number.isNaN(dk) ? 0 : Math.abs(dk - this.lastDk) <= 1e-9 * Math.abs(dk) ? 2 : 1;
-    const n = this.n;
-    zr.fill(0, 0, n2);
-    zi.fill(0, 0, n2);
-    // Z is symmetric: work on the upper triangle (j ≥ i) only, mirror at the end.
-    for (const part of this.parts) {
-      const [c0r, c0i, c1r, c1i, c2r, c2i] = part.c;
-      const { R, phR, phI, rotR, rotI } = part;
-      for (let r = 0; r < n; r++) {
-        const i0 = r * n + r;
-        const i1 = r * n + n;
-        if (mode === 0) {
-          for (let i = i0; i < i1; i++) {
-            phR[i] = Math.cos(k * R[i]);
-            phI[i] = -Math.sin(k * R[i]);
+    for (let pi = 0; pi < this.parts.length; pi++) {
+      const { R, d } = this.parts[pi];
+      const first = pi === 0;
+      let t = 0;
+      for (let a = 0; a < n; a++) {
+        const row = a * n;
+        for (let b = a; b < n; b++, t++) {
+          const o = STRIDE * t;
+          let pr: number;
+          let pim: number;
+          if (mode === 2) {
+            const er = d[o + 6];
+            const ei = d[o + 7];
+            const rr = d[o + 8];
+            const ri = d[o + 9];
+            pr = er * rr - ei * ri;
+            pim = er * ri + ei * rr;
+          } else if (mode === 1) {
+            const rr = Math.cos(dk * R[t]);
+            const ri = -Math.sin(dk * R[t]);
+            d[o + 8] = rr;
+            d[o + 9] = ri;
+            const er = d[o + 6];
+            const ei = d[o + 7];
+            pr = er * rr - ei * ri;
+            pim = er * ri + ei * rr;
+          } else {
+            pr = Math.cos(k * R[t]);
+            pim = -Math.sin(k * R[t]);
           }
-        } else {
-          if (mode === 1) {
-            for (let i = i0; i < i1; i++) {
-              rotR[i] = Math.cos(dk * R[i]);
-              rotI[i] = -Math.sin(dk * R[i]);
-            }
+          d[o + 6] = pr;
+          d[o + 7] = pim;
+          const ar = (d[o] + x * d[o + 2] + x2 * d[o + 4]) * invF;
+          const ai = (d[o + 1] + x * d[o + 3] + x2 * d[o + 5]) * invF;
+          const vr = ar * pr - ai * pim;
+          const vi = ar * pim + ai * pr;
+          if (first) {
+            zr[row + b] = vr;
+            zi[row + b] = vi;
+          } else {
+            zr[row + b] += vr;
+            zi[row + b] += vi;
           }
-          for (let i = i0; i < i1; i++) {
-            const a = phR[i];
-            const b = phI[i];
-            phR[i] = a * rotR[i] - b * rotI[i];
-            phI[i] = a * rotI[i] + b * rotR[i];
-          }
-        }
-        for (let i = i0; i < i1; i++) {
-          const ar = (c0r[i] + x * c1r[i] + x2 * c2r[i]) * invF;
-          const ai = (c0i[i] + x * c1i[i] + x2 * c2i[i]) * invF;
-          const pr = phR[i];
-          const pi = phI[i];
-          zr[i] += ar * pr - ai * pi;
-          zi[i] += ar * pi + ai * pr;
         }
       }
     }
