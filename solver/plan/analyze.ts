@@ -93,11 +93,25 @@ export function powerSplit(r: FrequencyResult): PowerSplit {
   return { radiated, wireLoss, loadLoss, groundLoss: 1 - radiated - wireLoss - loadLoss };
 }
 
+/** `wireRuns[0] "dipole"`, `supports[3] "pole"`, or the droop inside its run, for error paths. */
+function elementPath(plan: Plan, id: string | undefined): string {
+  if (id === undefined) return "plan";
+  const s = plan.supports.findIndex((x) => x.id === id);
+  if (s >= 0) return `supports[${s}] "${id}"`;
+  for (let r = 0; r < plan.wireRuns.length; r++) {
+    const run = plan.wireRuns[r];
+    if (run.id === id) return `wireRuns[${r}] "${id}"`;
+    const d = run.droops?.findIndex((x) => x.id === id) ?? -1;
+    if (d >= 0) return `wireRuns[${r}] "${run.id}": droops[${d}] "${id}"`;
+  }
+  return id;
+}
+
 /**
  * Run a solver step; a ModelError it throws names a wire (`wires[2].points`) or the feed, which the user
  * never wrote: re-throw it as a PlanError naming the plan element that wire came from.
  */
-function solverStep<T>(compiled: CompiledPlan, step: () => T): T {
+function solverStep<T>(plan: Plan, compiled: CompiledPlan, step: () => T): T {
   try {
     return step();
   } catch (e) {
@@ -109,11 +123,10 @@ function solverStep<T>(compiled: CompiledPlan, step: () => T): T {
         ? compiled.model.feed.wire
         : undefined;
     const ref = wire ? compiled.wireElement[wire] : undefined;
-    const what = ref ? `${ref.kind} "${ref.elementId}"` : "the plan";
     const inner = e.message.startsWith(`${e.path}: `) ? e.message.slice(e.path.length + 2) : e.message;
     throw new PlanError(
-      ref ? ref.elementId : "plan",
-      `${what} (as compiled, ${e.path || "model"}): ${inner}`,
+      elementPath(plan, ref?.elementId),
+      `${inner} (compiled model: ${e.path || "model"})`,
       ref?.elementId,
     );
   }
@@ -144,7 +157,7 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
       compiled.model.ground = { ...compiled.model.ground, method: "reflection" };
     }
   }
-  const prepared = solverStep(compiled, () => prepareModel(compiled.model, { patternStepDeg: 0 }));
+  const prepared = solverStep(plan, compiled, () => prepareModel(compiled.model, { patternStepDeg: 0 }));
   const run = activeRun(plan);
   const runWires = compiled.model.wires.filter(
     (w) => compiled.wireElement[w.id]?.elementId === run.id && compiled.wireElement[w.id].kind === "run",
@@ -154,7 +167,7 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
   const warnings: PlanWarning[] = [...compiled.warnings, ...mapSolverWarnings(prepared.warnings, compiled)];
 
   const results: BandAnalysis[] = bands.map((band, bi) => {
-    const sweepResults = solverStep(compiled, () =>
+    const sweepResults = solverStep(plan, compiled, () =>
       // Impedance only; bands of ≥ 6 points interpolate Z between three full fills (Newman 1988).
       prepared.solveSweep(
         sweeps[bi].map((mhz) => mhz * 1e6),
