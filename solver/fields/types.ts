@@ -28,7 +28,11 @@ export interface FarFieldSummary {
   /** Degrees from north (+y), clockwise. */
   peakBearingDeg: number;
   pattern?: PatternGrid;
+  /** Gain (dBi) along the great circle through the peak bearing: angle a is the elevation toward the peak
+   *  bearing, continuing over the zenith (a = 180 − e behind). 0..180 over ground, −90..270 in free space
+   *  (both ends the nadir). Nulls are floored at −300 dBi. */
   elevationCut: { anglesDeg: number[]; gainDbi: number[] };
+  /** Gain (dBi) at the peak elevation, bearings 0..360−step. */
   azimuthCut: { anglesDeg: number[]; gainDbi: number[] };
 }
 

@@ -117,6 +117,15 @@ describe("far field in free space", () => {
     );
   });
 
+  // The maximum of an x-directed dipole is the whole y–z circle (Balanis eq. 4-26, by symmetry): the
+  // reported peak is then the direction nearest the horizon with the smallest bearing, north at e = 0.
+  it("reports a ring-shaped maximum at the horizon toward north", () => {
+    const l = LAMBDA / 1000;
+    const r = free([uniform([-l / 2, 0, 0], [l / 2, 0, 0])]);
+    expect(r.peakElevationDeg).toBe(0);
+    expect(r.peakBearingDeg).toBe(0);
+  });
+
   // Two-element end-fire array (Balanis §6.3, ordinary end-fire: spacing λ/4, progressive phase −kd):
   // with e^{jωt}, the element further east lagging by 90° beams toward the east, bearing 90.
   it("beams an end-fire pair phased toward the east at bearing 90, elevation 0", () => {
