@@ -28,10 +28,10 @@ import type { ResolvedRealGround } from "./presets";
 import { type ReflectionWeights, reflectionPairTerms } from "./reflection";
 import type { HalfSpaceParams } from "./sommerfeld-integrals";
 import {
-  buildSommerfeldTable,
   contractRemainder,
   lookupRemainder,
   type SommerfeldTable,
+  sharedSommerfeldTable,
 } from "./sommerfeld-table";
 
 const C0 = 299_792_458;
@@ -173,7 +173,7 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
     out[8] -= kapRe * j[0] - kapIm * j[1];
     out[9] -= kapRe * j[1] + kapIm * j[0];
     // Remainder at Gauss points.
-    table ??= buildSommerfeldTable(tableParams, { rMax });
+    table ??= sharedSommerfeldTable(tableParams, { rMax });
     const t = table;
     const p3 = 3 * p;
     const q3 = 3 * q;

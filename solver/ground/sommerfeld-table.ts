@@ -182,3 +182,24 @@ export function contractRemainder(
   out[0] = (c1 * I[0] + c2 * I[2] + c3 * I[4] + c5 * I[6] + c6 * I[8]) / k2;
   out[1] = (c1 * I[1] + c2 * I[3] + c3 * I[5] + c5 * I[7] + c6 * I[9]) / k2;
 }
+
+// Tables by (frequency, ground), shared by every kernel in this process: a table depends on the model
+// only through the largest distance it must cover, so re-solving a band while a wire is dragged, or the
+// same model twice, reuses it. Built with 25 % slack in R′ so small edits still fit.
+const shared = new Map<string, SommerfeldTable>();
+const SHARED_MAX = 8;
+
+/** A table covering at least opt.rMax, from the shared cache when one fits. */
+export function sharedSommerfeldTable(h: HalfSpaceParams, opt: TableOptions): SommerfeldTable {
+  const key = `${h.k0}|${h.epsRe}|${h.epsIm}|${opt.rMin ?? ""}|${opt.stepWavelengths ?? ""}|${opt.thetaNodes ?? ""}`;
+  const hit = shared.get(key);
+  if (hit && hit.rMax >= opt.rMax) {
+    shared.delete(key);
+    shared.set(key, hit); // most recently used last
+    return hit;
+  }
+  const t = buildSommerfeldTable(h, { ...opt, rMax: opt.rMax * 1.25 });
+  shared.set(key, t);
+  if (shared.size > SHARED_MAX) shared.delete(shared.keys().next().value as string);
+  return t;
+}
