@@ -5,7 +5,7 @@ import { autosave, loadDemoPlan, restore } from "./persistence";
 import { StoreContext } from "./store/react";
 import { createAppStore } from "./store/store";
 import "./styles.css";
-import { connectAnalysis } from "./worker-client";
+import { connectAnalysis, startWorker } from "./worker-client";
 
 async function start() {
   const root = createRoot(document.getElementById("root")!);
@@ -23,7 +23,8 @@ async function start() {
   }
   const store = createAppStore(plan);
   if (restored.problem) store.getState().notify(restored.problem, "error");
-  connectAnalysis(store);
+  const worker = startWorker();
+  connectAnalysis(store, worker.api, worker.stop);
   // Autosave after edits settle; a plan that does not validate is never written over the last good one.
   let timer: ReturnType<typeof setTimeout> | undefined;
   store.subscribe((s, prev) => {
