@@ -249,5 +249,9 @@ describe("real ground in the solver", () => {
     expect(contact.efficiency).toBeLessThan(rod.efficiency);
     expect(rod.efficiency).toBeLessThan(ideal.efficiency);
     expect(ideal.efficiency).toBeLessThan(perfect.efficiency);
+    // The peak lifts off the ground as σ falls (same εr): the pseudo-Brewster angle rises.
+    const good = run({ kind: "real", conductivity: 0.05, permittivity: 13 }, "ideal");
+    const poor = run({ kind: "real", conductivity: 0.002, permittivity: 13 }, "ideal");
+    expect(poor.peakElevationDeg).toBeGreaterThan(good.peakElevationDeg);
   }, 60_000);
 });
