@@ -238,7 +238,7 @@ describe("real ground in the solver", () => {
     };
     const perfect = run({ kind: "perfect" });
     expect(perfect.impedance[0]).toBeGreaterThan(33);
-    expect(perfect.impedance[0]).toBeLessThan(40);
+    expect(perfect.impedance[0]).toBeLessThan(42); // finite radius and length: a few ohms above 36.5
     expect(perfect.peakElevationDeg).toBeLessThan(5);
     const ideal = run(AVERAGE, "ideal");
     const rod = run(AVERAGE, { rod: { length: 2.4, radius: 0.008 } });
