@@ -1,9 +1,15 @@
 /**
- * Dense complex LU factorisation with partial pivoting, over split real/imaginary Float64Arrays.
+ * Dense complex factorisations over split real/imaginary Float64Arrays (row-major n×n, element (i, j)
+ * at i·n + j), for the moment-method impedance matrix:
  *
- * Storage: row-major n×n, element (i, j) at i·n + j. After luFactor the strict lower triangle holds
- * L (unit diagonal implied) and the upper triangle holds U, with P·A = L·U; piv[k] is the row that was
- * swapped into row k at step k (LAPACK-style sequential interchanges).
+ *   luFactor / luSolve     LU with partial pivoting, P·A = L·U; the general, always-safe path.
+ *   ldltFactor / ldltSolve complex-symmetric LDLᵀ without pivoting, half the work; only for matrices
+ *                          whose pivots stay large.
+ *   factorSymmetric        LDLᵀ when the matrix is symmetric and the factors show no growth, else LU;
+ *                          solve with luSolve either way.
+ *
+ * After luFactor the strict lower triangle holds L (unit diagonal implied) and the upper triangle U;
+ * piv[k] is the row swapped into row k at step k (LAPACK-style sequential interchanges).
  *
  * Speed (measured with tests/bench/run.ts, lu-400): the algorithm is recursive LU (Toledo 1997, "Locality
  * of reference in LU decomposition with partial pivoting", SIAM J. Matrix Anal. Appl. 18(4)): split the
@@ -11,7 +17,9 @@
  * rank-k update, A[i, j] −= Σ_k L[i, k]·U[k, j], done by a register-blocked kernel that updates four rows
  * from two pivot rows per sweep over contiguous row segments (i-k-j order), so each loaded U element feeds
  * four complex multiply-adds and each A element is loaded and stored once per two pivots. The pivot-row
- * chunk (KCHUNK rows of U) stays in L2 while all rows below stream past it.
+ * chunk (KCHUNK rows of U) stays in L2 while all rows below stream past it. Where WebAssembly SIMD exists
+ * (Node 20, current browsers) that kernel runs two columns per instruction in lu-simd.ts, on a copy of the
+ * matrix in the module's memory; everything else stays in JS and works on views of that copy.
  */
 
 import { type SimdKernel, simdKernel } from "./lu-simd";
