@@ -55,7 +55,6 @@ function gridGeometry(b: ReturnType<typeof lotBounds>, step: number, margin: num
 export function Ground({ plan, onGroundPointer }: Props) {
   const unit: LengthUnit = plan.units;
   const b = lotBounds(plan.lot.outline);
-  const margin = b.size * 0.6;
   const step = gridStepMetres(unit);
   const outlineKey = plan.lot.outline;
   // Rebuilt only when the lot or the unit changes, not on every edit elsewhere in the plan.
@@ -74,7 +73,8 @@ export function Ground({ plan, onGroundPointer }: Props) {
   return (
     <group>
       <mesh position={[b.cx, b.cy, -0.01]} onPointerDown={onGroundPointer} name="ground">
-        <planeGeometry args={[b.size + margin * 2.4, b.size + margin * 2.4]} />
+        {/* Far wider than the grid, so the horizon is ground from any side. */}
+        <planeGeometry args={[b.size * 30, b.size * 30]} />
         <meshLambertMaterial color={palette.ground} />
       </mesh>
       <lineSegments geometry={minor} position={[0, 0, 0.003]}>

@@ -64,6 +64,8 @@ function Contents() {
   return (
     <>
       <color attach="background" args={[palette.sky]} />
+      {/* The far ground fades into the sky instead of ending at an edge. */}
+      <fog attach="fog" args={[palette.sky, b.size * 3, b.size * 9]} />
       <hemisphereLight args={["#ffffff", "#8a9a7a", 1.6]} />
       <directionalLight position={[-20, -30, 40]} intensity={1.4} />
       <CameraRig centre={[b.cx, b.cy]} size={b.size} />

@@ -28,7 +28,7 @@ export function useDrag() {
       if (e.button !== 0) return;
       e.stopPropagation();
       const s = store.getState();
-      if (s.tool.kind === "add-wire" && mode.kind === "move-support") {
+      if (s.tool.kind === "add-wire" && (mode.kind === "move-support" || mode.kind === "support-height")) {
         pickTarget(store, { support: mode.id }, e.nativeEvent.shiftKey);
         return;
       }
