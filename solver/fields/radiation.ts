@@ -8,13 +8,14 @@
  *   ∫ I(l) e^{jκl} dl = ℓ (sin x/x)² Σ_k I_k z^k − I_0 H̄ − I_n H z^n,
  *   H = ∫_0^ℓ (1 − l/ℓ) e^{jκl} dl = ℓ [ (sin x/x)²/2 + j (x − sin x cos x)/(2x²) ],
  * (the full triangle's transform is ℓ sinc²; the H terms remove the halves hanging past the run's ends).
- * Short runs: the polynomial is summed by Horner's rule per direction, two directions at a time so the
- * two dependency chains overlap. Long runs: the sum depends on the direction only through c = r̂·t̂, so it
- * is tabulated once per run on a grid in c fine enough for its band limit and interpolated (cubic),
- * which makes the per-direction cost independent of the run's length (error ≈ 2e-10 of Σ|I|ℓ). Per run and direction there is one fast
- * sine/cosine pair for the phase of the run's first node, and a short polynomial for x.
- * A horizontal run has the same x at e and −e, so its sum is shared by the mirrored rows; only the
- * vertical phase e^{±jk z sin e} differs. Checked against the per-segment form in reference.ts.
+ * The sum depends on the direction only through c = r̂·t̂ and is band-limited in c (|frequency| ≤
+ * k(L/2 + ℓ) once its phase origin is the run's middle), so it is tabulated once per run on a grid in c
+ * and interpolated (cubic Lagrange; error ≈ 2e-10 of Σ|I|ℓ): the per-direction cost does not grow with
+ * the run's length. The middle's phase e^{jk r̂·m} = e^{jk cos e (ĥ·m)} e^{jk sin e m_z} costs one fast
+ * sine/cosine pair per run for four directions, (±e, b) and (±e, b + 180°); level runs also share the
+ * interpolation between ±e. Runs whose table would outgrow the grid (very long runs on coarse grids)
+ * are summed per direction by Horner's rule instead, two directions at a time so the two dependency
+ * chains overlap. Checked against the per-segment form in reference.ts.
  */
 
 import type { DirectionGrid } from "./grid";
@@ -23,7 +24,7 @@ import type { Runs } from "./runs";
 // Fast sin/cos: reduction by the nearest multiple of π/2 in two parts (Cody–Waite; q·PIO2_HI is exact for
 // |q| < 2^20), then the minimax kernels of fdlibm's __kernel_sin/__kernel_cos (Sun Microsystems, freely
 // distributable; the basis of most C libraries), ~1 ulp on |r| ≤ π/4 — about 3× Math.sin + Math.cos. Everything
-// in the loop below is written out by hand: a call that V8 does not inline boxes its double arguments,
+// in the loops below is written out by hand: a call that V8 does not inline boxes its double arguments,
 // which costs more than the arithmetic here.
 const TWO_OVER_PI = 0.6366197723675814;
 const PIO2_HI = 1.5707963267341256;
@@ -123,6 +124,189 @@ function buildRunTable(runs: Runs, r: number, k: number, count: number): Float64
   return table;
 }
 
+/**
+ * One tabulated run on the whole grid. S̃ is interpolated (cubic Lagrange) at c = r̂·t̂ and multiplied by
+ * the phase of the run's middle m, e^{jk r̂·m} = e^{jk cos e (ĥ·m)} e^{jk sin e m_z}. The horizontal factor
+ * is the same at e and −e and conjugate at the opposite bearing (ĥ → −ĥ), so one sine/cosine pair
+ * serves the four directions (±e, b) and (±e, b + 180°); level runs also share S̃ between ±e.
+ */
+function tabulatedRun(
+  grid: DirectionGrid,
+  runs: Runs,
+  r: number,
+  k: number,
+  table: Float64Array,
+  count: number,
+  out: RadiationGrid,
+): void {
+  const { cosE, sinE, sinB, cosB, horizon } = grid;
+  const nE = cosE.length;
+  const nB = sinB.length;
+  const halfB = nB / 2;
+  const { thRe, thIm, phRe, phIm } = out;
+  const n = runs.segments[r];
+  const ell = runs.segmentLength[r];
+  const tx = runs.direction[3 * r];
+  const ty = runs.direction[3 * r + 1];
+  const tz = runs.direction[3 * r + 2];
+  const half = 0.5 * n * ell;
+  const mx = runs.origin[3 * r] + half * tx;
+  const my = runs.origin[3 * r + 1] + half * ty;
+  const mz = runs.origin[3 * r + 2] + half * tz;
+  const invStep = (count - 3) / 2;
+  const last = count - 3;
+  const level = tz === 0;
+  for (let i = horizon; i < nE; i++) {
+    const ce = cosE[i];
+    const se = sinE[i];
+    const up = i * nB;
+    const dn = (2 * horizon - i) * nB;
+    const both = i !== horizon;
+    const vs = Math.sin(k * se * mz);
+    const vc = Math.cos(k * se * mz);
+    for (let j = 0; j < halfB; j++) {
+      const sb = sinB[j];
+      const cb = cosB[j];
+      const hb = sb * tx + cb * ty;
+      const f = -cb * tx + sb * ty;
+      let hs: number;
+      let hc: number;
+      {
+        const a = k * ce * (sb * mx + cb * my);
+        const q = Math.round(a * TWO_OVER_PI);
+        const x = a - q * PIO2_HI - q * PIO2_LO;
+        const z = x * x;
+        const sr = x + x * z * (S1 + z * (S2 + z * (S3 + z * (S4 + z * (S5 + z * S6)))));
+        const cr = 1 - 0.5 * z + z * z * (C1 + z * (C2 + z * (C3 + z * (C4 + z * (C5 + z * C6)))));
+        const oct = q & 3;
+        hs = oct === 0 ? sr : oct === 1 ? cr : oct === 2 ? -sr : -cr;
+        hc = oct === 0 ? cr : oct === 1 ? -sr : oct === 2 ? -cr : sr;
+      }
+      // Phases: (e, b) h·v, (−e, b) h·v̄, (e, b+180) h̄·v, (−e, b+180) h̄·v̄.
+      const p1Re = hc * vc - hs * vs;
+      const p1Im = hc * vs + hs * vc;
+      const p2Re = hc * vc + hs * vs;
+      const p2Im = hs * vc - hc * vs;
+      const p3Re = p2Re;
+      const p3Im = -p2Im;
+      const p4Re = p1Re;
+      const p4Im = -p1Im;
+      const ja = j;
+      const jb = j + halfB;
+      // (e, b): c = ce hb + se tz, θ̂·t̂ = se hb − ce tz, φ̂·t̂ = f
+      // (−e, b): c = ce hb − se tz, θ̂·t̂ = −se hb − ce tz, φ̂·t̂ = f
+      // (e, b+180): c = −ce hb + se tz, θ̂·t̂ = −se hb − ce tz, φ̂·t̂ = −f
+      // (−e, b+180): c = −ce hb − se tz, θ̂·t̂ = se hb − ce tz, φ̂·t̂ = −f
+      const gA = se * hb - ce * tz;
+      const gB = -se * hb - ce * tz;
+      // (e, b) and (e, b+180)
+      {
+        let s1Re: number;
+        let s1Im: number;
+        {
+          const u = (ce * hb + se * tz + 1) * invStep + 1;
+          const m = Math.min(Math.max(Math.floor(u), 1), last);
+          const t = u - m;
+          const w0 = (-t * (t - 1) * (t - 2)) / 6;
+          const w1 = ((t + 1) * (t - 1) * (t - 2)) / 2;
+          const w2 = (-(t + 1) * t * (t - 2)) / 2;
+          const w3 = ((t + 1) * t * (t - 1)) / 6;
+          const q = 2 * (m - 1);
+          s1Re = w0 * table[q] + w1 * table[q + 2] + w2 * table[q + 4] + w3 * table[q + 6];
+          s1Im = w0 * table[q + 1] + w1 * table[q + 3] + w2 * table[q + 5] + w3 * table[q + 7];
+        }
+        let s3Re: number;
+        let s3Im: number;
+        {
+          const u = (-ce * hb + se * tz + 1) * invStep + 1;
+          const m = Math.min(Math.max(Math.floor(u), 1), last);
+          const t = u - m;
+          const w0 = (-t * (t - 1) * (t - 2)) / 6;
+          const w1 = ((t + 1) * (t - 1) * (t - 2)) / 2;
+          const w2 = (-(t + 1) * t * (t - 2)) / 2;
+          const w3 = ((t + 1) * t * (t - 1)) / 6;
+          const q = 2 * (m - 1);
+          s3Re = w0 * table[q] + w1 * table[q + 2] + w2 * table[q + 4] + w3 * table[q + 6];
+          s3Im = w0 * table[q + 1] + w1 * table[q + 3] + w2 * table[q + 5] + w3 * table[q + 7];
+        }
+        {
+          const qRe = s1Re * p1Re - s1Im * p1Im;
+          const qIm = s1Re * p1Im + s1Im * p1Re;
+          thRe[up + ja] += gA * qRe;
+          thIm[up + ja] += gA * qIm;
+          phRe[up + ja] += f * qRe;
+          phIm[up + ja] += f * qIm;
+        }
+        {
+          const qRe = s3Re * p3Re - s3Im * p3Im;
+          const qIm = s3Re * p3Im + s3Im * p3Re;
+          thRe[up + jb] += gB * qRe;
+          thIm[up + jb] += gB * qIm;
+          phRe[up + jb] += -f * qRe;
+          phIm[up + jb] += -f * qIm;
+        }
+        if (both) {
+          // (−e, b) and (−e, b+180): a level run has the same c there.
+          let s2Re = s1Re;
+          let s2Im = s1Im;
+          let s4Re = s3Re;
+          let s4Im = s3Im;
+          if (!level) {
+            let t2Re: number;
+            let t2Im: number;
+            {
+              const u = (ce * hb - se * tz + 1) * invStep + 1;
+              const m = Math.min(Math.max(Math.floor(u), 1), last);
+              const t = u - m;
+              const w0 = (-t * (t - 1) * (t - 2)) / 6;
+              const w1 = ((t + 1) * (t - 1) * (t - 2)) / 2;
+              const w2 = (-(t + 1) * t * (t - 2)) / 2;
+              const w3 = ((t + 1) * t * (t - 1)) / 6;
+              const q = 2 * (m - 1);
+              t2Re = w0 * table[q] + w1 * table[q + 2] + w2 * table[q + 4] + w3 * table[q + 6];
+              t2Im = w0 * table[q + 1] + w1 * table[q + 3] + w2 * table[q + 5] + w3 * table[q + 7];
+            }
+            let t4Re: number;
+            let t4Im: number;
+            {
+              const u = (-ce * hb - se * tz + 1) * invStep + 1;
+              const m = Math.min(Math.max(Math.floor(u), 1), last);
+              const t = u - m;
+              const w0 = (-t * (t - 1) * (t - 2)) / 6;
+              const w1 = ((t + 1) * (t - 1) * (t - 2)) / 2;
+              const w2 = (-(t + 1) * t * (t - 2)) / 2;
+              const w3 = ((t + 1) * t * (t - 1)) / 6;
+              const q = 2 * (m - 1);
+              t4Re = w0 * table[q] + w1 * table[q + 2] + w2 * table[q + 4] + w3 * table[q + 6];
+              t4Im = w0 * table[q + 1] + w1 * table[q + 3] + w2 * table[q + 5] + w3 * table[q + 7];
+            }
+            s2Re = t2Re;
+            s2Im = t2Im;
+            s4Re = t4Re;
+            s4Im = t4Im;
+          }
+          {
+            const qRe = s2Re * p2Re - s2Im * p2Im;
+            const qIm = s2Re * p2Im + s2Im * p2Re;
+            thRe[dn + ja] += gB * qRe;
+            thIm[dn + ja] += gB * qIm;
+            phRe[dn + ja] += f * qRe;
+            phIm[dn + ja] += f * qIm;
+          }
+          {
+            const qRe = s4Re * p4Re - s4Im * p4Im;
+            const qIm = s4Re * p4Im + s4Im * p4Re;
+            thRe[dn + jb] += gA * qRe;
+            thIm[dn + jb] += gA * qIm;
+            phRe[dn + jb] += -f * qRe;
+            phIm[dn + jb] += -f * qIm;
+          }
+        }
+      }
+    }
+  }
+}
+
 /** Fills (and returns) module-owned scratch arrays; valid until the next call. Phases must stay below
  *  ~1e6 rad (k·|r| for any node), far beyond any backyard. */
 export function radiationGrid(grid: DirectionGrid, runs: Runs, k: number): RadiationGrid {
@@ -159,6 +343,10 @@ export function radiationGrid(grid: DirectionGrid, runs: Runs, k: number): Radia
     // Long runs: tabulate the run sum in c = r̂·t̂ (phase origin at the run's middle) and interpolate.
     const tableCount = n >= TABLE_MIN_SEGMENTS ? tableSize(k, n, ell) : 0;
     const table = tableCount > 0 && tableCount < size / 4 ? buildRunTable(runs, r, k, tableCount) : undefined;
+    if (table !== undefined) {
+      tabulatedRun(grid, runs, r, k, table, tableCount, scratch);
+      continue;
+    }
     const invStep = (tableCount - 3) / 2;
     const tableLast = tableCount - 3;
     const shift = table === undefined ? 0 : 0.5 * n * ell;
