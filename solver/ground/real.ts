@@ -155,11 +155,22 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       `wires[${wi}].groundConnection`,
     );
 
-  // The remainder is smooth on the scale of a segment except close to the image point, so the order
-  // falls with image distance over segment length (midpoint beyond 8 lengths: error O((ℓ/d)²) of a term
-  // that is itself a fraction of the reflected field).
+  // The remainder is smooth on the scale of a segment except close to the image point (~1/R′), so the
+  // order follows image distance over segment length: up to 10 points for a wire a few centimetres above
+  // the soil, the midpoint beyond 8 lengths (error O((ℓ/d)²) of a term that is itself a fraction of the
+  // reflected field).
   const remainderRule = (d: number, h: number): Rule =>
-    d < 2 * h ? gaussRule(4) : d < 4 * h ? gaussRule(3) : d < 8 * h ? gaussRule(2) : gaussRule(1);
+    d < 0.2 * h
+      ? gaussRule(10)
+      : d < 0.5 * h
+        ? gaussRule(6)
+        : d < 2 * h
+          ? gaussRule(4)
+          : d < 4 * h
+            ? gaussRule(3)
+            : d < 8 * h
+              ? gaussRule(2)
+              : gaussRule(1);
 
   const sommerfeldPair = (p: number, q: number, out: Float64Array) => {
     // Quasi-static image: κ × the perfect-image terms (perfect adds −(t̂_p·M.dir)J and −J00).

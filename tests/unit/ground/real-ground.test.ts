@@ -57,6 +57,40 @@ describe("real ground in the solver", () => {
     expect(r.efficiency).toBeLessThan(0.9);
   }, 60_000);
 
+  // The case the rigorous method exists for: a wire a few centimetres above the soil (image distance
+  // far below the segment length). Balance and segmentation convergence both.
+  it("closes the power balance for a wire 3 cm above the soil, and converges with segmentation", () => {
+    const L = 0.48 * LAMBDA;
+    const at = (segments: number) =>
+      solve1(
+        {
+          wires: [
+            {
+              id: "d",
+              points: [
+                [-L / 2, 0, 0.03],
+                [L / 2, 0, 0.03],
+              ],
+              radius: 0.001,
+              segments,
+            },
+          ],
+          feed: { wire: "d", at: 0.5 },
+          ground: AVERAGE,
+          frequenciesMHz: [MHZ],
+        },
+        2,
+      );
+    const r = at(21);
+    expect(r.method).toBe("sommerfeld");
+    const ground = groundLossWatts(r.mesh, r.segmentCurrents, MHZ * 1e6, {
+      permittivity: 13,
+      conductivity: 0.005,
+    });
+    expect(Math.abs(r.power.radiated + ground - r.power.accepted)).toBeLessThan(0.01);
+    expect(rel(r.impedance, at(41).impedance)).toBeLessThan(0.02);
+  }, 60_000);
+
   // Same balance for a wire slanted at 45°, low over the ground: exercises the vertical and the
   // horizontal–vertical cross terms of the reflected dyadic, which a horizontal dipole never touches.
   it("closes the power balance for a slanted wire (Sommerfeld)", () => {
