@@ -223,9 +223,9 @@ export function runGeometry(
       `the ropes (${(ropeStart + ropeEnd).toFixed(2)} m) leave no wire in the ${distance3(pts[0], pts[1]).toFixed(2)} m span`,
     );
   }
-  if (ropeStart >= distance3(pts[0], pts[1]) - 0.05)
+  if (ropeStart > 0 && ropeStart >= distance3(pts[0], pts[1]) - 0.05)
     err(plan, at("anchors", 0, "rope"), "longer than the first span");
-  if (ropeEnd >= distance3(pts[n - 1], pts[n - 2]) - 0.05)
+  if (ropeEnd > 0 && ropeEnd >= distance3(pts[n - 1], pts[n - 2]) - 0.05)
     err(plan, at("anchors", n - 1, "rope"), "longer than the last span");
   const ends: Point3[] = pts.map((p) => [...p] as Point3);
   if (ropeStart > 0) ends[0] = towards(pts[0], pts[1], ropeStart);

@@ -62,6 +62,8 @@ export interface TemplateResult {
   /** Value of the template's length parameter after trimming (total conductor for most). */
   lengthM: number;
   trim: TrimResult | undefined;
+  /** Set when trimming could not reach resonance (the layout is returned as trimmed so far). */
+  warning?: string;
 }
 
 /** End rope kept at each support, metres (so the wire end clears the trunk or pole). */
@@ -152,13 +154,14 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
     if (L > span - 2 * MIN_ROPE) {
       throw new PlanError(
         "template",
-        `a ${L.toFixed(1)} m ${what} does not fit the ${span.toFixed(1)} m between "${req.from}" and "${req.to}": try drooped ends or a bent dipole`,
+        `a ${L.toFixed(1)} m ${what} with ${MIN_ROPE} m of rope at each end does not fit the ${span.toFixed(1)} m between "${req.from}" and "${req.to}": try drooped ends or a bent dipole`,
       );
     }
   };
 
   let layout: (L: number) => WireRun;
   let start = handbookDipoleM(mhz);
+  let bounds: { min: number; max: number } | undefined;
   switch (req.kind) {
     case "straight-dipole":
     case "ocf-dipole":
@@ -192,13 +195,18 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
     case "drooped-dipole":
     case "z-dipole": {
       const flat = span - 2 * MIN_ROPE;
+      // A trimmed dipole runs up to ~5 % longer than the handbook length: only when even that fits
+      // is there nothing to droop or bend.
+      if (flat >= 1.05 * start) {
+        throw new PlanError(
+          "template",
+          `the ${span.toFixed(1)} m between "${req.from}" and "${req.to}" already takes a whole ${start.toFixed(1)} m dipole: use a straight dipole`,
+        );
+      }
+      start = Math.max(start, flat + 0.2);
+      bounds = { min: flat + 0.3, max: start * 1.5 };
       layout = (L) => {
         const leg = (L - flat) / 2;
-        if (leg < 0.05)
-          throw new PlanError(
-            "template",
-            `the span already fits a ${L.toFixed(1)} m dipole: use a straight dipole`,
-          );
         const run: WireRun = {
           ...base,
           anchors: [A.anchor(`${id}-a`, height, MIN_ROPE), B.anchor(`${id}-b`, height, MIN_ROPE)],
@@ -224,16 +232,21 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
         }
         return run;
       };
-      start = Math.max(start, flat + 0.2);
       break;
     }
     case "l-dipole": {
       // One leg from A to B (the corner, roped to B), the other turning 90° there, level.
       const leg1 = span - 2 * MIN_ROPE;
+      if (leg1 >= 1.05 * start) {
+        throw new PlanError(
+          "template",
+          `the ${span.toFixed(1)} m between "${req.from}" and "${req.to}" already takes a whole ${start.toFixed(1)} m dipole: use a straight dipole`,
+        );
+      }
+      start = Math.max(start, leg1 + 0.5);
+      bounds = { min: leg1 + 0.1, max: start * 1.5 };
       layout = (L) => {
         const leg2 = L - leg1;
-        if (leg2 < 0.05)
-          throw new PlanError("template", "the span already fits the whole dipole: use a straight dipole");
         return {
           ...base,
           anchors: [
@@ -244,7 +257,6 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
           feed: feed(0.5),
         };
       };
-      start = Math.max(start, leg1 + 0.5);
       break;
     }
     case "inverted-v": {
@@ -253,7 +265,11 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
       layout = (L) => {
         const leg = L / 2;
         const endZ = height - leg * s;
-        if (endZ < 0.3) throw new PlanError("template", `the legs would reach the ground from ${height} m`);
+        if (endZ < 0.3)
+          throw new PlanError(
+            "template",
+            `the legs would reach the ground from ${height.toFixed(1)} m: use a taller support or a bent dipole`,
+          );
         return {
           ...base,
           anchors: [
@@ -291,9 +307,11 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
     wireRuns: [...plan.wireRuns.filter((r) => r.id !== run.id), run],
     analysis: { ...(plan.analysis ?? {}), activeRun: run.id },
   });
-  // Trim the run alone among the plan's supports (other runs would be parasitic to it).
-  const trimPlan = (run: WireRun): Plan => ({ ...withRun(run), wireRuns: [run] });
-  const build = (L: number) => compilePlan(trimPlan(layout(L)), { frequenciesMHz: [mhz] }).model;
+  // Trim in the plan as it will be analysed: other runs stay (parasitic, or terminated at their feeds).
+  const trimPlan = withRun;
+  // Compiled for the band edges, as the analysis compiles it: the same mesh and ground method.
+  const build = (L: number) =>
+    compilePlan(trimPlan(layout(L)), { frequenciesMHz: [band.lowMHz, band.highMHz] }).model;
   let trim: TrimResult | undefined;
   let L = start;
   if (req.trim !== false) {
@@ -302,11 +320,15 @@ export function buildTemplate(plan: Plan, req: TemplateRequest): TemplateResult 
     trim =
       req.kind === "end-fed-half-wave"
         ? trimByFrequency(build, start, mhz, "swr-min")
-        : trimToResonance(build, start, mhz);
+        : trimToResonance(build, start, mhz, bounds);
     L = trim.lengthM;
   }
   const run = layout(L);
-  return { run, plan: withRun(run), handbookLengthM: start, lengthM: L, trim };
+  const out: TemplateResult = { run, plan: withRun(run), handbookLengthM: start, lengthM: L, trim };
+  if (trim && !trim.converged) {
+    out.warning = `could not trim "${run.name}" to resonance at ${mhz.toFixed(3)} MHz: ${trim.residualOhms.toFixed(0)} Ω of reactance is left (nearby wires couple to it, or the layout runs out of room)`;
+  }
+  return out;
 }
 
 /** Total conductor length of a run as compiled (droops included). */
@@ -319,9 +341,13 @@ export function runConductorLength(plan: Plan, runId: string): number {
 
 /** Series resonance of the plan's active run nearest the band centre, from a small local sweep. */
 export function planResonanceNear(plan: Plan, mhz: number): number | undefined {
-  const model = compilePlan(plan, { frequenciesMHz: [mhz] }).model;
+  const edges = plan.bands.flatMap((b) => {
+    const e = bandEdges(b, plan.ituRegion);
+    return [e.lowMHz, e.highMHz];
+  });
+  const model = compilePlan(plan, { frequenciesMHz: edges }).model;
   const f = [0.97, 0.985, 1, 1.015, 1.03].map((k) => k * mhz);
-  const p = prepareModel({ ...model, frequenciesMHz: f }, { patternStepDeg: 0 });
+  const p = prepareModel(model, { patternStepDeg: 0 });
   const x = f.map((m) => p.solveAt(m * 1e6, { patternStepDeg: 0 }).impedance[1]);
   for (let i = 1; i < f.length; i++) {
     if (x[i - 1] * x[i] <= 0) return f[i - 1] - (x[i - 1] * (f[i] - f[i - 1])) / (x[i] - x[i - 1]);

@@ -18,8 +18,10 @@ export interface TrimResult {
 const TOLERANCE_OHMS = 0.5;
 const MAX_STEPS = 10;
 
+/* The model's own frequency list sets the segmentation and the "auto" ground method, so a layout trimmed
+ * here meshes exactly as the analysis of the same plan will (compile it with the band edges). */
 export function reactanceAt(model: WireModel, mhz: number): number {
-  const p = prepareModel({ ...model, frequenciesMHz: [mhz] }, { patternStepDeg: 0 });
+  const p = prepareModel(model, { patternStepDeg: 0 });
   return p.solveAt(mhz * 1e6, { patternStepDeg: 0 }).impedance[1];
 }
 
@@ -31,7 +33,8 @@ export function trimToResonance(
 ): TrimResult {
   let l0 = startM;
   let x0 = reactanceAt(build(l0), mhz);
-  let l1 = startM * (x0 > 0 ? 0.97 : 1.03);
+  // The second probe goes toward resonance but stays inside the bounds.
+  let l1 = Math.min(bounds.max, Math.max(bounds.min, startM * (x0 > 0 ? 0.97 : 1.03)));
   let x1 = reactanceAt(build(l1), mhz);
   let steps = 2;
   while (Math.abs(x1) > TOLERANCE_OHMS && steps < MAX_STEPS) {
@@ -56,7 +59,7 @@ export function resonancesNear(model: WireModel, mhz: number, spanFraction = 0.0
     { length: points },
     (_, i) => mhz * (1 - spanFraction + (2 * spanFraction * i) / (points - 1)),
   );
-  const p = prepareModel({ ...model, frequenciesMHz: f }, { patternStepDeg: 0 });
+  const p = prepareModel(model, { patternStepDeg: 0 });
   const x = f.map((m) => p.solveAt(m * 1e6, { patternStepDeg: 0 }).impedance[1]);
   return findResonances(f, x).map((r) => r.mhz);
 }
@@ -96,7 +99,7 @@ export function resonanceIn(
   f: number[],
   kind: "series" | "parallel" | "swr-min",
 ): number | undefined {
-  const p = prepareModel({ ...model, frequenciesMHz: f }, { patternStepDeg: 0 });
+  const p = prepareModel(model, { patternStepDeg: 0 });
   const r = f.map((m) => p.solveAt(m * 1e6, { patternStepDeg: 0 }));
   const mid = f[Math.floor(f.length / 2)];
   if (kind === "swr-min") {

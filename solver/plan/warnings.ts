@@ -173,8 +173,10 @@ export function compileWarnings(plan: Plan, ctx: Context): PlanWarning[] {
 
   // Wire ends within reach above a walkway or in a keep-out area: the RF voltage at a free end can burn.
   const reach = plan.analysis?.reachHeight ?? DEFAULT_REACH_HEIGHT;
+  const radialWires = new Set(ctx.parts.filter((p) => p.kind === "radial").map((p) => p.wire));
   for (const e of ctx.freeEnds) {
-    if (e.point[2] >= reach) continue;
+    // Radials lie on the ground: a trip hazard to route round paths, not a hanging live end.
+    if (e.point[2] >= reach || radialWires.has(e.wire)) continue;
     const owner =
       e.end === "start" ? elementAt(ctx.parts, e.wire, 0) : elementAt(ctx.parts, e.wire, Infinity);
     const p2: [number, number] = [e.point[0], e.point[1]];
