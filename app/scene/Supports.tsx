@@ -1,6 +1,6 @@
 import { Html, Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import * as THREE from "three";
 import type { Building, Fence, Mast, Plan, Point2, Support, Tree } from "../../solver/plan/schema";
 import { isMetalMast, supportCentre } from "../plan/elements";
@@ -15,9 +15,14 @@ interface ItemProps<S extends Support> {
   unit: LengthUnit;
   selected: boolean;
   hovered: boolean;
-  onDown: (e: ThreeEvent<PointerEvent>, mode: DragMode) => void;
+  drag: ReturnType<typeof useDrag>;
   onHover: (id: string | null) => void;
 }
+
+/** Wraps the shared drag starter for one support (its centre is where a move is measured from). */
+const downFor =
+  (s: Support, drag: ReturnType<typeof useDrag>) => (e: ThreeEvent<PointerEvent>, mode: DragMode) =>
+    drag(e, mode, supportCentre(s));
 
 const tint = (base: string, selected: boolean, hovered: boolean) =>
   selected ? palette.selected : hovered ? palette.hover : base;
@@ -48,7 +53,8 @@ function HeightHandle({
   );
 }
 
-function TreeItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps<Tree>) {
+const TreeItem = memo(function TreeItem({ s, unit, selected, hovered, drag, onHover }: ItemProps<Tree>) {
+  const onDown = downFor(s, drag);
   const [x, y] = s.position;
   const total = s.totalHeight ?? s.height + 2;
   const trunk = s.trunkDiameter ?? 0.35;
@@ -88,9 +94,10 @@ function TreeItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps<Tre
       </Html>
     </group>
   );
-}
+});
 
-function MastItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps<Mast>) {
+const MastItem = memo(function MastItem({ s, unit, selected, hovered, drag, onHover }: ItemProps<Mast>) {
+  const onDown = downFor(s, drag);
   const [x, y] = s.position;
   const metal = isMetalMast(s);
   const colour = metal ? palette.metal : s.material === "wood" ? palette.wood : palette.fibreglass;
@@ -156,7 +163,7 @@ function MastItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps<Mas
       </Html>
     </group>
   );
-}
+});
 
 function roofGeometry(b: Building): THREE.BufferGeometry {
   // Walls up to the eaves; the roof as a triangle fan from the centroid, each vertex at the roof height
@@ -208,7 +215,15 @@ function roofGeometry(b: Building): THREE.BufferGeometry {
   return walls;
 }
 
-function BuildingItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps<Building>) {
+const BuildingItem = memo(function BuildingItem({
+  s,
+  unit,
+  selected,
+  hovered,
+  drag,
+  onHover,
+}: ItemProps<Building>) {
+  const onDown = downFor(s, drag);
   const geo = useMemo(() => roofGeometry(s), [s]);
   const roof = geo.userData.roof as THREE.BufferGeometry;
   const ridge = geo.userData.ridge as [number, number, number][];
@@ -229,9 +244,10 @@ function BuildingItem({ s, unit, selected, hovered, onDown, onHover }: ItemProps
       </Html>
     </group>
   );
-}
+});
 
-function FenceItem({ s, selected, hovered, onDown, onHover }: ItemProps<Fence>) {
+const FenceItem = memo(function FenceItem({ s, selected, hovered, drag, onHover }: ItemProps<Fence>) {
+  const onDown = downFor(s, drag);
   const move = (e: ThreeEvent<PointerEvent>) =>
     onDown(e, { kind: "move-support", id: s.id, grab: [e.point.x, e.point.y] });
   const colour = tint(s.material === "metal" ? palette.fenceMetal : palette.fence, selected, hovered);
@@ -255,7 +271,7 @@ function FenceItem({ s, selected, hovered, onDown, onHover }: ItemProps<Fence>) 
       })}
     </group>
   );
-}
+});
 
 /** Every support in the plan, selectable and draggable. */
 export function Supports({ plan }: { plan: Plan }) {
@@ -266,12 +282,13 @@ export function Supports({ plan }: { plan: Plan }) {
   return (
     <group>
       {plan.supports.map((s) => {
+        // Props stay equal for untouched supports (immutable plan), so memo skips them on every edit.
         const common = {
           unit: plan.units,
           selected: s.id === selectedId,
           hovered: s.id === hoverId,
           onHover: hover,
-          onDown: (e: ThreeEvent<PointerEvent>, mode: DragMode) => drag(e, mode, supportCentre(s)),
+          drag,
         };
         switch (s.type) {
           case "tree":
