@@ -12,6 +12,7 @@
  *   real     direct + image with its θ-part weighted by R_v(e) and its φ-part by −R_h(e) (Fresnel,
  *            solver/ground/fresnel.ts). Space wave only: the surface wave, which matters only within a
  *            few degrees of the horizon, is not modelled, and the power integral covers the space wave.
+ *            On grids of 5° and coarser the power integral upsamples the field first (hemisphere-power.ts).
  * Cuts: the elevation cut runs over the great circle through the peak bearing, angle a measured as
  * elevation toward the peak bearing and continuing over the top: a = 0..180 over ground (0 = horizon
  * toward the peak bearing, 90 = zenith, 180 = horizon behind); −90..270 in free space (−90 and 270 are
@@ -23,12 +24,15 @@ import { fresnel } from "../ground/fresnel";
 import { ModelError } from "../model/errors";
 import { C0, ETA0 } from "./constants";
 import { directionGrid } from "./grid";
+import { realGroundPower } from "./hemisphere-power";
 import { radiationGrid } from "./radiation";
 import { buildRuns } from "./runs";
 import type { FarFieldFn, FarFieldRequest, FarFieldSummary } from "./types";
 import { checkPositive } from "./validate";
 
 const FLOOR = 1e-30;
+/** From this step up, the real-ground power integral upsamples the field (hemisphere-power.ts). */
+const COARSE_REAL_STEP = 5;
 const FLOOR_DB = -300;
 
 export function toDb(ratio: number): number {
@@ -140,6 +144,17 @@ export const computeFarField: FarFieldFn = (req) => {
     radiated += weights[r] * (sum / nB);
   }
   radiated *= 2 * Math.PI;
+  if (req.ground.kind === "real" && grid.stepDeg >= COARSE_REAL_STEP) {
+    radiated = realGroundPower(
+      grid,
+      n,
+      scale,
+      req.ground.permittivity,
+      req.ground.conductivity,
+      omega,
+      grid.stepDeg >= 9 ? 4 : 2,
+    );
+  }
 
   const gainOf = (4 * Math.PI) / req.acceptedWatts;
   // Ties (a horizontal dipole in free space peaks on a whole ring): take the direction within 1e-6 of
