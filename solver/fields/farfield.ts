@@ -157,8 +157,8 @@ export const computeFarField: FarFieldFn = (req) => {
   }
 
   const gainOf = (4 * Math.PI) / req.acceptedWatts;
-  // Ties (a horizontal dipole in free space peaks on a whole ring): take the direction within 1e-6 of
-  // the maximum (above the ~1e-9 table-interpolation noise) nearest the horizon, then the smallest bearing, so the answer is stable.
+  // Ties (a horizontal dipole in free space peaks on a whole ring): take the direction within 1e-8 of the
+  // maximum (above the ~1e-9 table-interpolation noise) nearest the horizon, then the smallest bearing.
   const tie = uMax * (1 - 1e-8);
   const horizonRow = grid.horizon - first;
   for (let d = 0; d < rows; d++) {
