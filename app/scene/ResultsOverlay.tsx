@@ -60,7 +60,8 @@ function CurrentTubes({
       const len = d.length();
       q.setFromUnitVectors(Y, d.normalize());
       const t = peak > 0 ? mags[i] / peak : 0;
-      const r = 0.05 + 0.16 * t;
+      // Thick enough to read across a garden: |I| shows as both colour and girth.
+      const r = 0.07 + 0.22 * t;
       s.set(r, len, r);
       m.compose(a.add(b).multiplyScalar(0.5), q, s);
       inst.setMatrixAt(i, m);

@@ -117,7 +117,13 @@ function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUn
             dashSize={0.3}
             gapSize={0.2}
           />
-          <Html position={[0, 0, 0.5]} className="label label-feed" center zIndexRange={[10, 0]}>
+          <Html
+            position={[0, 0, 0]}
+            className="label label-feed"
+            center
+            zIndexRange={[10, 0]}
+            style={{ transform: "translate(0, 20px)" }}
+          >
             feed · {formatLength(sketch.feedPoint[2], unit)} up
           </Html>
         </group>
