@@ -23,12 +23,3 @@ export function rampTransform(x: number): number {
   }
   return (Math.sin(x) - x * Math.cos(x)) / (2 * x * x);
 }
-
-/** (x − sin x cos x)/(2x²) = ∫_0^1 (1−u) sin(2xu) du: imaginary part of a half-triangle's transform / ℓ. */
-export function halfTriangleIm(x: number, sx: number, cx: number): number {
-  if (Math.abs(x) < SMALL) {
-    const x2 = x * x;
-    return x * (1 / 3 - x2 * (1 / 15 - x2 * (2 / 315 - x2 / 2835)));
-  }
-  return (x - sx * cx) / (2 * x * x);
-}
