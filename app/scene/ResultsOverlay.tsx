@@ -146,12 +146,20 @@ function Lobe({ band }: { band: BandAnalysis }) {
 }
 
 export function ResultsOverlay({ analysis, band, stale, showCurrents, showLobe }: Props) {
-  const hv = analysis.highVoltagePoints.filter((p) => p.band === band.name);
+  // Keys stable across passes and drags (a wire has at most two free ends), so labels are not remounted.
+  const seen = new Map<string, number>();
+  const hv = analysis.highVoltagePoints
+    .filter((p) => p.band === band.name)
+    .map((p) => {
+      const n = seen.get(p.wire) ?? 0;
+      seen.set(p.wire, n + 1);
+      return { ...p, key: `${p.wire}#${n}` };
+    });
   return (
     <group>
       {showCurrents && <CurrentTubes analysis={analysis} band={band} stale={stale} />}
       {hv.map((p) => (
-        <group key={`${p.wire}:${p.point.join()}`} position={p.point}>
+        <group key={p.key} position={p.point}>
           <mesh raycast={() => null}>
             <sphereGeometry args={[0.22, 14, 10]} />
             <meshBasicMaterial color={palette.highVoltage} transparent opacity={stale ? 0.4 : 0.9} />

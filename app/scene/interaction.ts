@@ -26,8 +26,10 @@ export function useDrag() {
   return useCallback(
     (e: ThreeEvent<PointerEvent>, mode: DragMode, centre: Point2) => {
       if (e.button !== 0) return;
-      e.stopPropagation();
       const s = store.getState();
+      // The feed tool wants the wire: let the click pass through trees and roofs in front of it.
+      if (s.tool.kind === "place-feed") return;
+      e.stopPropagation();
       if (s.tool.kind === "add-wire" && (mode.kind === "move-support" || mode.kind === "support-height")) {
         pickTarget(store, { support: mode.id }, e.nativeEvent.shiftKey);
         return;
