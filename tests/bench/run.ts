@@ -7,8 +7,9 @@
  *
  * Cases: lu-400 (target ≥ 8 GFlop/s, counting 8/3·n³), lu-400-naive (the plain triple loop, for scale),
  * ldlt-400, zlu-200 / zsym-200 (the real yard-200 matrix, pivoted LU vs factorSymmetric), yard-200
- * (< 20 ms), sweep-41 (< 250 ms), yard-200-real (no target yet). Model cases skip, with a note, when the
- * engine cannot run them.
+ * (< 20 ms), sweep-41 (< 250 ms), yard-200-real (no target yet), plan-quick (the live quick pass on the
+ * demo plan while a support is dragged, < 30 ms). Model cases skip, with a note, when the engine cannot
+ * run them.
  *
  * Each case is warmed up (so the JIT has compiled the hot loops) and then repeated. We report the median
  * wall time, robust to the odd slow run; the minimum, the machine's best; and the median CPU time of this
@@ -16,6 +17,7 @@
  * Notes (skipped cases, sanity warnings) go to stderr so the JSON on stdout stays clean.
  */
 
+import { readFileSync } from "node:fs";
 import type { SolveOptions, SolveResult, WireModel } from "../../solver/model/types";
 import { factorSymmetric, ldltFactor, ldltSolve, luFactor, luSolve } from "../../solver/mom/lu";
 import { randomSystem, relResidual } from "../unit/linalg/reference";
@@ -263,6 +265,53 @@ function modelCase(
   };
 }
 
+/**
+ * The live quick pass the editor runs on every drag event: the demo plan with its oak moved a little
+ * further east on every run, as a drag does (new geometry, and a slightly different mean wire height,
+ * each call — nothing is revisited, so no per-geometry cache can hide the work).
+ */
+function planQuickCase(): BenchCase {
+  return {
+    name: "plan-quick",
+    warmup: 5,
+    runs: 31,
+    async prepare() {
+      const { analyzePlan } = await import("../../solver/plan/analyze");
+      const { parsePlan } = await import("../../solver/plan/schema");
+      const url = new URL("../../public/demo-plan.json", import.meta.url);
+      const plan = parsePlan(JSON.parse(readFileSync(url, "utf8")));
+      const oak = plan.supports.findIndex((s) => s.id === "oak");
+      const at = plan.supports[oak];
+      if (at.type !== "tree") throw new Skip("demo plan: the oak is not a tree any more");
+      let step = 0;
+      let last: ReturnType<typeof analyzePlan> | undefined;
+      return {
+        run() {
+          step++;
+          const supports = [...plan.supports];
+          supports[oak] = { ...at, position: [at.position[0] + 0.02 * step, at.position[1] - 0.01 * step] };
+          last = analyzePlan({ ...plan, supports }, { quick: true });
+        },
+        describe() {
+          const a = last!;
+          const b = a.bands[0];
+          return {
+            unknowns: a.unknowns,
+            frequencies: b.sweep.length + 1,
+            targetMs: 30,
+            mhz: b.centreMHz,
+            impedance: b.feedImpedance,
+            swr: b.sweep[b.sweep.length >> 1].swr,
+            peakGainDbi: b.peakGainDbi,
+            vsIdealDipoleDb: b.vsIdealDipoleDb,
+            groundMethod: a.groundMethod,
+          };
+        },
+      };
+    },
+  };
+}
+
 const cases: BenchCase[] = [
   luCase("lu-400", 400, luPair, false, 5, 15),
   luCase("lu-400-naive", 400, naivePair, false, 1, 5),
@@ -280,6 +329,7 @@ const cases: BenchCase[] = [
   ),
   // No target given for real ground yet: reported, not judged.
   modelCase("yard-200-real", yardModel(AVERAGE_GROUND, [14.15]), { patternStepDeg: 2 }, undefined, 2, 7),
+  planQuickCase(),
 ];
 
 async function main(): Promise<void> {
