@@ -69,13 +69,12 @@ export function idealDipole(input: IdealDipoleInput): IdealDipoleResult {
     input.centreMHz,
   );
   const model = straightDipoleModel(trim.lengthM, input);
-  const result = prepareModel(model, { patternStepDeg: input.patternStepDeg }).solveAt(
-    input.centreMHz * 1e6,
-    {
-      patternStepDeg: input.patternStepDeg,
-    },
-  );
-  const near = resonancesNear(model, input.centreMHz);
+  const prepared = prepareModel(model, { patternStepDeg: input.patternStepDeg });
+  const result = prepared.solveAt(input.centreMHz * 1e6, {
+    patternStepDeg: input.patternStepDeg,
+  });
+  // The same prepared model serves the resonance search (impedance only): one mesh, not two.
+  const near = resonancesNear(model, input.centreMHz, undefined, undefined, prepared);
   const out: IdealDipoleResult = {
     lengthM: trim.lengthM,
     resonanceMHz: near.length

@@ -1,5 +1,5 @@
 import { findResonances } from "../analysis/resonance";
-import { prepareModel } from "../index";
+import { type PreparedModel, prepareModel } from "../index";
 import type { WireModel } from "../model/types";
 
 /**
@@ -53,13 +53,23 @@ export function trimToResonance(
   return { lengthM: l1, residualOhms: x1, steps, converged: Math.abs(x1) <= TOLERANCE_OHMS };
 }
 
-/** Series or parallel resonances of a model in a small window around `mhz` (±`spanFraction`). */
-export function resonancesNear(model: WireModel, mhz: number, spanFraction = 0.01, points = 3): number[] {
+/**
+ * Series or parallel resonances of a model in a small window around `mhz` (±`spanFraction`).
+ * `prepared`: the same model already prepared by the caller (the ideal dipole has just solved it for
+ * its pattern), so the mesh and ground kernel are not built twice; each solve here asks for no pattern.
+ */
+export function resonancesNear(
+  model: WireModel,
+  mhz: number,
+  spanFraction = 0.01,
+  points = 3,
+  prepared?: PreparedModel,
+): number[] {
   const f = Array.from(
     { length: points },
     (_, i) => mhz * (1 - spanFraction + (2 * spanFraction * i) / (points - 1)),
   );
-  const p = prepareModel(model, { patternStepDeg: 0 });
+  const p = prepared ?? prepareModel(model, { patternStepDeg: 0 });
   const x = f.map((m) => p.solveAt(m * 1e6, { patternStepDeg: 0 }).impedance[1]);
   return findResonances(f, x).map((r) => r.mhz);
 }
