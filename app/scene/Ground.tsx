@@ -1,10 +1,11 @@
-import { Html, Line } from "@react-three/drei";
+import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
 import { useMemo } from "react";
 import * as THREE from "three";
 import type { Plan, Point2 } from "../../solver/plan/schema";
 import { formatLength, gridStepMetres, type LengthUnit } from "../units";
 import { palette } from "./palette";
+import { YardLabel } from "./YardLabel";
 
 interface Props {
   plan: Plan;
@@ -104,19 +105,18 @@ export function Ground({ plan, onGroundPointer }: Props) {
           <coneGeometry args={[0.8, 1.8, 3]} />
           <meshBasicMaterial color={palette.north} />
         </mesh>
-        <Html
+        <YardLabel
           position={[dir[0] * (arrowLen * 0.5 + 1.3), dir[1] * (arrowLen * 0.5 + 1.3), 0]}
           center
           className="label label-north"
-          zIndexRange={[10, 0]}
-        >
-          N
-        </Html>
+          text="N"
+        />
       </group>
-      <Html position={[b.minX, b.minY - 1.2, 0]} className="label label-muted" zIndexRange={[10, 0]}>
-        grid {formatLength(step.minor, unit, unit === "ft" ? 0 : 0)}, bold every{" "}
-        {formatLength(step.major, unit, 0)}
-      </Html>
+      <YardLabel
+        position={[b.minX, b.minY - 1.2, 0]}
+        className="label label-muted"
+        text={`grid ${formatLength(step.minor, unit, 0)}, bold every ${formatLength(step.major, unit, 0)}`}
+      />
     </group>
   );
 }

@@ -1,8 +1,8 @@
-import { Html } from "@react-three/drei";
 import { useLayoutEffect, useMemo, useRef } from "react";
 import * as THREE from "three";
 import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
 import { currentColour, palette } from "./palette";
+import { YardLabel } from "./YardLabel";
 
 /**
  * What the solver found, drawn on the yard: the current along every wire (colour and thickness by |I|,
@@ -121,9 +121,12 @@ function Lobe({ band }: { band: BandAnalysis }) {
   }, [grid, band.centre.peakGainDbi]);
   if (!geo) {
     return (
-      <Html position={[0, 0, 6]} center className="label label-muted">
-        the 3D pattern is not in this result
-      </Html>
+      <YardLabel
+        position={[0, 0, 6]}
+        center
+        className="label label-muted"
+        text="the 3D pattern is not in this result"
+      />
     );
   }
   return (
@@ -168,14 +171,11 @@ export function ResultsOverlay({ analysis, band, stale, showCurrents, showLobe }
             <sphereGeometry args={[0.5, 14, 10]} />
             <meshBasicMaterial color={palette.highVoltage} transparent opacity={0.15} depthWrite={false} />
           </mesh>
-          <Html
-            center
+          <YardLabel
             className="label label-danger"
-            style={{ transform: "translate(0, 22px)" }}
-            zIndexRange={[10, 0]}
-          >
-            ⚡ high RF voltage
-          </Html>
+            offset="translate(-50%, 16px)"
+            text="⚡ high RF voltage"
+          />
         </group>
       ))}
       {showLobe && <Lobe band={band} />}

@@ -1,4 +1,4 @@
-import { Html, Line } from "@react-three/drei";
+import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
 import { memo, useMemo } from "react";
 import * as THREE from "three";
@@ -9,6 +9,7 @@ import { useApp } from "../store/react";
 import { formatLength, type LengthUnit } from "../units";
 import { type DragMode, useDrag } from "./interaction";
 import { palette } from "./palette";
+import { YardLabel } from "./YardLabel";
 
 interface ItemProps<S extends Support> {
   s: S;
@@ -89,9 +90,11 @@ const TreeItem = memo(function TreeItem({ s, unit, selected, hovered, drag, onHo
           onDown={(e) => onDown(e, { kind: "support-height", id: s.id, base: s.position })}
         />
       )}
-      <Html position={[x, y, s.height]} className="label label-left" zIndexRange={[10, 0]}>
-        {formatLength(s.height, unit)}
-      </Html>
+      <YardLabel
+        position={[x, y, s.height]}
+        className="label label-left"
+        text={formatLength(s.height, unit)}
+      />
     </group>
   );
 });
@@ -151,16 +154,12 @@ const MastItem = memo(function MastItem({ s, unit, selected, hovered, drag, onHo
           onDown={(e) => onDown(e, { kind: "support-height", id: s.id, base: s.position })}
         />
       )}
-      <Html
+      <YardLabel
         position={[x, y, s.height]}
         className={`label ${metal ? "label-metal" : ""}`}
-        center
-        zIndexRange={[10, 0]}
-        style={{ transform: "translate(30px, 0)" }}
-      >
-        {formatLength(s.height, unit)} ·{" "}
-        {metal ? `metal, ${grounded ? "grounded" : "insulated"}` : s.material}
-      </Html>
+        offset="translate(14px, -50%)"
+        text={`${formatLength(s.height, unit)} · ${metal ? `metal, ${grounded ? "grounded" : "insulated"}` : s.material}`}
+      />
     </group>
   );
 });
@@ -239,9 +238,12 @@ const BuildingItem = memo(function BuildingItem({
         <meshLambertMaterial color={tint(palette.roof, selected, hovered)} side={THREE.DoubleSide} />
       </mesh>
       <Line points={ridge} color="#4a2a20" lineWidth={2} />
-      <Html position={[c[0], c[1], s.ridgeHeight + 0.4]} className="label" center zIndexRange={[10, 0]}>
-        ridge {formatLength(s.ridgeHeight, unit)}
-      </Html>
+      <YardLabel
+        position={[c[0], c[1], s.ridgeHeight + 0.4]}
+        className="label"
+        center
+        text={`ridge ${formatLength(s.ridgeHeight, unit)}`}
+      />
     </group>
   );
 });

@@ -1,4 +1,4 @@
-import { Html, Line } from "@react-three/drei";
+import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
 import type { Plan, Point3, WireRun } from "../../solver/plan/schema";
 import { setFeed as setFeedAt } from "../plan/commands";
@@ -7,6 +7,7 @@ import { useApp, useAppStore } from "../store/react";
 import { formatLength, type LengthUnit } from "../units";
 import { useDrag } from "./interaction";
 import { palette } from "./palette";
+import { YardLabel } from "./YardLabel";
 
 const mid = (a: Point3, b: Point3): Point3 => [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2, (a[2] + b[2]) / 2];
 
@@ -89,15 +90,12 @@ function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUn
             <sphereGeometry args={[0.09, 8, 6]} />
             <meshBasicMaterial color={palette.wire} />
           </mesh>
-          <Html
+          <YardLabel
             position={mid(d.from, d.to)}
             className="label label-small"
-            zIndexRange={[10, 0]}
-            style={{ transform: "translate(8px, -50%)" }}
-          >
-            droop{" "}
-            {formatLength(Math.hypot(d.from[0] - d.to[0], d.from[1] - d.to[1], d.from[2] - d.to[2]), unit)}
-          </Html>
+            offset="translate(8px, -50%)"
+            text={`droop ${formatLength(Math.hypot(d.from[0] - d.to[0], d.from[1] - d.to[1], d.from[2] - d.to[2]), unit)}`}
+          />
         </group>
       ))}
       {sketch.feedPoint && (
@@ -117,26 +115,20 @@ function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUn
             dashSize={0.3}
             gapSize={0.2}
           />
-          <Html
-            position={[0, 0, 0]}
+          <YardLabel
             className="label label-feed"
-            center
-            zIndexRange={[10, 0]}
-            style={{ transform: "translate(0, 20px)" }}
-          >
-            feed · {formatLength(sketch.feedPoint[2], unit)} up
-          </Html>
+            offset="translate(-50%, 14px)"
+            text={`feed · ${formatLength(sketch.feedPoint[2], unit)} up`}
+          />
         </group>
       )}
       {labelAt && (
-        <Html
+        <YardLabel
           position={labelAt}
           className="label label-small"
-          zIndexRange={[10, 0]}
-          style={{ transform: "translate(-50%, -160%)" }}
-        >
-          {formatLength(sketch.length, unit)} of wire
-        </Html>
+          offset="translate(-50%, -160%)"
+          text={`${formatLength(sketch.length, unit)} of wire`}
+        />
       )}
     </group>
   );
