@@ -1,6 +1,7 @@
 import { useLayoutEffect, useMemo, useRef } from "react";
 import * as THREE from "three";
 import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
+import type { Point3 } from "../../solver/plan/schema";
 import { currentColour, palette } from "./palette";
 import { YardLabel } from "./YardLabel";
 
@@ -13,7 +14,8 @@ interface Props {
   band: BandAnalysis;
   stale: boolean;
   showCurrents: boolean;
-  showLobe: boolean;
+  /** Where to centre the 3D pattern lobe (the feed point), or null to hide it. */
+  lobeAt: Point3 | null;
 }
 
 const Y = new THREE.Vector3(0, 1, 0);
@@ -130,7 +132,7 @@ function Lobe({ band }: { band: BandAnalysis }) {
     );
   }
   return (
-    <group position={[0, 0, 0.05]}>
+    <group>
       <mesh geometry={geo} raycast={() => null}>
         <meshLambertMaterial
           color={palette.lobe}
@@ -148,7 +150,7 @@ function Lobe({ band }: { band: BandAnalysis }) {
   );
 }
 
-export function ResultsOverlay({ analysis, band, stale, showCurrents, showLobe }: Props) {
+export function ResultsOverlay({ analysis, band, stale, showCurrents, lobeAt }: Props) {
   // Keys stable across passes and drags (a wire has at most two free ends), so labels are not remounted.
   const seen = new Map<string, number>();
   const hv = analysis.highVoltagePoints
@@ -178,7 +180,12 @@ export function ResultsOverlay({ analysis, band, stale, showCurrents, showLobe }
           />
         </group>
       ))}
-      {showLobe && <Lobe band={band} />}
+      {lobeAt && (
+        // The pattern is the far field seen from the antenna, so its origin is the feed point, in the air.
+        <group position={lobeAt}>
+          <Lobe band={band} />
+        </group>
+      )}
     </group>
   );
 }

@@ -75,26 +75,13 @@ function Contents() {
       <Supports plan={plan} />
       <Wires plan={plan} />
       {result && band && (
-        <group>
-          <ResultsOverlay
-            analysis={result.analysis}
-            band={band}
-            stale={stale}
-            showCurrents={showCurrents}
-            showLobe={false}
-          />
-          {showLobe && feed && (
-            <group position={[feed[0], feed[1], 0]}>
-              <ResultsOverlay
-                analysis={{ ...result.analysis, highVoltagePoints: [] }}
-                band={band}
-                stale={stale}
-                showCurrents={false}
-                showLobe
-              />
-            </group>
-          )}
-        </group>
+        <ResultsOverlay
+          analysis={result.analysis}
+          band={band}
+          stale={stale}
+          showCurrents={showCurrents}
+          lobeAt={showLobe && feed ? feed : null}
+        />
       )}
     </>
   );
