@@ -297,7 +297,7 @@ function planQuickCase(): BenchCase {
           const b = a.bands[0];
           return {
             unknowns: a.unknowns,
-            frequencies: b.sweep.length + 1,
+            frequencies: b.sweep.length, // the band centre (pattern solve) is the middle sweep point
             targetMs: 30,
             mhz: b.centreMHz,
             impedance: b.feedImpedance,
