@@ -20,8 +20,12 @@ export const chromiumLaunch: LaunchOptions = {
   ],
 };
 
-/** The production build served by vite preview: what users get, and steadier than the dev server. */
-export const PORT = 4173;
+/**
+ * The production build served by vite preview: what users get, and steadier than the dev server.
+ * E2E_PORT picks another port on a shared machine, where someone else's server on 4173 would
+ * otherwise be reused (and tested) instead of this checkout's build.
+ */
+export const PORT = Number(process.env.E2E_PORT ?? 4173);
 export const webServer = {
   command: `npx vite build --logLevel warn && npx vite preview --port ${PORT} --strictPort --host 127.0.0.1`,
   url: `http://127.0.0.1:${PORT}/`,

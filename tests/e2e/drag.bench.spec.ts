@@ -49,8 +49,17 @@ test("drag a support: input to updated resonance, and main-thread long tasks", a
     }).observe(status, { attributes: true, attributeFilter: ["data-result-revision"] });
   });
 
+  // The page's own main-thread time over the drag (Chromium's counters): scripting, and all tasks.
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send("Performance.enable");
+  const counters = async () => {
+    const { metrics } = await cdp.send("Performance.getMetrics");
+    const get = (n: string) => metrics.find((m) => m.name === n)?.value ?? 0;
+    return { script: get("ScriptDuration"), task: get("TaskDuration") };
+  };
   const [x0, y0] = birch.at;
   await page.mouse.move(x0, y0);
+  const before = await counters();
   await page.mouse.down();
   const latencies: number[] = [];
   for (let i = 1; i <= STEPS; i++) {
@@ -87,6 +96,10 @@ test("drag a support: input to updated resonance, and main-thread long tasks", a
       .then((h) => h.jsonValue() as Promise<number>);
     if (inputAt !== undefined) latencies.push(shownAt - inputAt);
   }
+  const after = await counters();
+  const results = await page.evaluate(
+    () => (window as unknown as { __bench: { shown: unknown[] } }).__bench.shown.length,
+  );
   await page.mouse.up();
   await page.waitForFunction(
     () => document.querySelector('[data-testid="analysis-status"]')?.getAttribute("data-state") === "current",
@@ -104,6 +117,10 @@ test("drag a support: input to updated resonance, and main-thread long tasks", a
     maxMs: Number((sorted.at(-1) ?? Number.NaN).toFixed(1)),
     longTasks: longTasks.length,
     longestTaskMs: Number((longTasks.length ? Math.max(...longTasks) : 0).toFixed(1)),
+    // Seconds → ms, per pointer move of the drag (each move also brings about one result).
+    scriptMsPerMove: Number((((after.script - before.script) * 1000) / STEPS).toFixed(1)),
+    taskMsPerMove: Number((((after.task - before.task) * 1000) / STEPS).toFixed(1)),
+    resultsShown: results,
   };
   console.log(`bench:app drag-to-resonance ${JSON.stringify(figures)}`);
   test.info().annotations.push({ type: "bench", description: JSON.stringify(figures) });
