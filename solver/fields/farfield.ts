@@ -21,8 +21,8 @@
  */
 
 import { fresnel } from "../ground/fresnel";
+import { C0, ETA0 } from "../model/constants";
 import { ModelError } from "../model/errors";
-import { C0, ETA0 } from "./constants";
 import { directionGrid } from "./grid";
 import { realGroundPower } from "./hemisphere-power";
 import { radiationGrid } from "./radiation";

@@ -13,9 +13,9 @@
  * from the segment's length over its distance to the point and over the wavelength.
  */
 
+import { C0, EPS0, MU0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { MeshView, SegmentCurrents, Vec3 } from "../model/types";
-import { C0, EPS0_FROM_MU0, MU0 } from "./constants";
 import { checkMeshAndCurrents, checkPositive } from "./validate";
 
 export type NearFieldGround = "free" | "perfect";
@@ -194,7 +194,7 @@ export function nearFieldPoints(
 
 function fieldFromSources(src: Source, omega: number, point: Vec3): NearField {
   const k = omega / C0;
-  const eps = EPS0_FROM_MU0;
+  const eps = EPS0;
   const e = new Float64Array(6);
   const h = new Float64Array(6);
   const [px, py, pz] = point;

@@ -22,9 +22,10 @@
  * quasi-static: valid while the electrode is small against the wavelength in the soil (a 2.4 m rod in
  * average ground at 7 MHz is about a quarter of it), hence "estimate" on every label.
  */
+
+import { EPS0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { GroundConnection } from "../model/types";
-import { EPS0 } from "./fresnel";
 
 export type ConnectionModel = "ideal" | "lumped" | "dwight-rod" | "contact-hemisphere";
 

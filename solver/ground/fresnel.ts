@@ -12,7 +12,7 @@
  * conductor both weights are 1 and the plain image comes back.
  */
 
-export const EPS0 = 8.8541878128e-12;
+import { EPS0 } from "../model/constants";
 
 export interface Reflection {
   rvRe: number;

@@ -18,8 +18,10 @@
  * Valid for wires strictly above the ground. A wire end on z = 0 injects current into the soil that this
  * spectral sum does not see (it would need the source in the lower medium), so it refuses such meshes.
  */
+
+import { EPS0 } from "../model/constants";
 import type { MeshView, SegmentCurrents } from "../model/types";
-import { csqrt, EPS0 } from "./fresnel";
+import { csqrt } from "./fresnel";
 
 const MU0 = 1.25663706212e-6;
 const C0 = 299_792_458;

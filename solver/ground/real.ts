@@ -17,12 +17,13 @@
  *   bare "contact", each with σ → σ + jωε₀ε_r at HF (connectionImpedance). All are quasi-static
  *   estimates and are labelled so.
  */
+
+import { EPS0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { GroundMethod } from "../model/types";
 import { pairIntegrals } from "../mom/pair-integrals";
 import { gaussRule, type Rule } from "../mom/quadrature";
 import { connectionImpedance, connectionResistance } from "./connection";
-import { EPS0 } from "./fresnel";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 import type { ResolvedRealGround } from "./presets";
 import { type ReflectionWeights, reflectionPairTerms } from "./reflection";

@@ -12,7 +12,7 @@
 
 import type { Mesh } from "../geometry/types";
 import type { GroundKernel } from "../ground/kernel";
-import { C0, ETA0 } from "./constants";
+import { C0, ETA0 } from "../model/constants";
 import { type FillScratch, fillMatrix } from "./fill";
 
 /** Peak node of each basis, xyz flattened. */

@@ -12,8 +12,8 @@
  * Harrington 1968 for the Galerkin form).
  */
 import type { Mesh, Port } from "../geometry/types";
+import { MU0 } from "../model/constants";
 import type { LoadInput } from "../model/types";
-import { MU0 } from "./constants";
 
 /** Bases and signs of the pieces at a port. */
 export function portPieces(mesh: Mesh, port: Port): { basis: number[]; sign: number[] } {

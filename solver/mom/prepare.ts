@@ -6,9 +6,9 @@
 import type { FarFieldFn, FarFieldGround } from "../fields/types";
 import type { Mesh } from "../geometry/types";
 import type { GroundKernel } from "../ground/kernel";
+import { C0, ETA0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { FrequencyResult, SegmentCurrents, WireCurrentSummary } from "../model/types";
-import { C0, ETA0 } from "./constants";
 import { makeSolveWork, solveSymmetric } from "./factor-solve";
 import { fillMatrix, makeFillScratch } from "./fill";
 import { BandInterpolator } from "./interpolate";

@@ -1,9 +1,9 @@
 /** Far field in free space against textbook dipoles (currents prescribed, no moment method). */
 
 import { describe, expect, it } from "vitest";
-import { ETA0 } from "../../../solver/fields/constants";
 import { computeFarField } from "../../../solver/fields/farfield";
 import type { FarFieldRequest } from "../../../solver/fields/types";
+import { ETA0 } from "../../../solver/model/constants";
 import type { Vec3 } from "../../../solver/model/types";
 import { buildMesh, C, sinusoidalDipole, type Wire } from "./helpers";
 import { cin, dipolePowerPerAmpSq } from "./reference-values";

@@ -1,10 +1,10 @@
 /** Far field over perfect and real ground against image theory and the two-ray (space-wave) formulas. */
 
 import { describe, expect, it } from "vitest";
-import { ETA0 } from "../../../solver/fields/constants";
 import { computeFarField } from "../../../solver/fields/farfield";
 import type { FarFieldGround } from "../../../solver/fields/types";
 import { fresnel } from "../../../solver/ground/fresnel";
+import { ETA0 } from "../../../solver/model/constants";
 import type { Vec3 } from "../../../solver/model/types";
 import { buildMesh, C, sinusoidalDipole, type Wire } from "./helpers";
 

@@ -2,8 +2,8 @@
 
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { ETA0 } from "../../../solver/fields/constants";
 import { nearFieldAt } from "../../../solver/fields/nearfield";
+import { ETA0 } from "../../../solver/model/constants";
 import type { Vec3 } from "../../../solver/model/types";
 import { buildMesh, C, sinusoidalDipole } from "./helpers";
 

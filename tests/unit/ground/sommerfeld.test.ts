@@ -12,13 +12,13 @@
  * in the spectral domain (∇ → (−jkx, −jky, −u0)).
  */
 import { describe, expect, it } from "vitest";
-import { EPS0 } from "../../../solver/ground/fresnel";
 import { remainderContext, remainderIntegrals } from "../../../solver/ground/sommerfeld-integrals";
 import {
   buildSommerfeldTable,
   contractRemainder,
   lookupRemainder,
 } from "../../../solver/ground/sommerfeld-table";
+import { EPS0 } from "../../../solver/model/constants";
 
 type C = [number, number];
 const mul = (a: C, b: C): C => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];

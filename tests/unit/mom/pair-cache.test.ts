@@ -6,8 +6,8 @@
 import { describe, expect, it } from "vitest";
 import { freeSpaceGround } from "../../../solver/ground/free";
 import { prepareInternal } from "../../../solver/index";
+import { ETA0 } from "../../../solver/model/constants";
 import type { WireModel } from "../../../solver/model/types";
-import { ETA0 } from "../../../solver/mom/constants";
 import { fillMatrix, makeFillScratch } from "../../../solver/mom/fill";
 import { findRuns } from "../../../solver/mom/pair-cache";
 

@@ -10,7 +10,7 @@ export const C0 = 299_792_458;
 export const MU0 = 1.25663706212e-6;
 
 /** Vacuum permittivity, F/m: 1/(μ0 c²) ≈ 8.8541878128e-12 (CODATA 2018). */
-export const EPS0_FROM_MU0 = 1 / (MU0 * C0 * C0);
+export const EPS0 = 1 / (MU0 * C0 * C0);
 
 /** Wave impedance of free space, ohms: μ0 c ≈ 376.730313668. */
 export const ETA0 = MU0 * C0;
