@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { memo, useMemo, useState } from "react";
 import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
 import { findElement } from "../plan/elements";
 import { freshness } from "../store/analysis-slice";
@@ -18,13 +18,15 @@ function Status() {
   const running = useApp((s) => s.running);
   const failure = useApp((s) => s.failure);
   const result = useApp((s) => s.result);
-  const plan = useApp((s) => s.plan);
+  // Only the element the failure points at, not the whole plan (which changes on every drag step).
+  const targetId = useApp((s) =>
+    s.failure ? findElement(s.plan, s.failure.failure.elementId)?.id : undefined,
+  );
   const revision = useApp((s) => s.revision);
   // Revisions as attributes: the bench and the browser tests match a shown result to the plan it is for.
   const revisions = { "data-plan-revision": revision, "data-result-revision": result?.revision ?? -1 };
   if (state === "failed" && failure) {
     const f = failure.failure;
-    const target = findElement(plan, f.elementId);
     return (
       <div
         className="status status-error"
@@ -34,8 +36,8 @@ function Status() {
         {...revisions}
       >
         <strong>This plan can’t be analysed.</strong> {f.message}
-        {target && (
-          <button type="button" className="link" onClick={() => store.getState().select(target.id)}>
+        {targetId && (
+          <button type="button" className="link" onClick={() => store.getState().select(targetId)}>
             Show the element
           </button>
         )}
@@ -137,8 +139,17 @@ function resonanceVerdict(band: BandAnalysis): { text: string; tone: string } {
   };
 }
 
-function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAnalysis }) {
-  const plan = useApp((s) => s.plan);
+// Memoised, and reading only the unit and north from the plan: a drag step changes the plan but not
+// these figures, which change only when a result arrives.
+const BandResults = memo(function BandResults({
+  analysis,
+  band,
+}: {
+  analysis: PlanAnalysis;
+  band: BandAnalysis;
+}) {
+  const units = useApp((s) => s.plan.units);
+  const northDeg = useApp((s) => s.plan.lot.northDeg);
   const res = band.resonancesMHz.length
     ? band.resonancesMHz.reduce((a, b) =>
         Math.abs(b - band.centreMHz) < Math.abs(a - band.centreMHz) ? b : a,
@@ -147,6 +158,7 @@ function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAna
   const verdict = resonanceVerdict(band);
   const cutEl = band.centre.elevationCut;
   const cutAz = band.centre.azimuthCut;
+  const azAngles = useMemo(() => cutAz?.anglesDeg.map((a) => a - northDeg), [cutAz, northDeg]);
   return (
     <>
       <div className="headline" data-testid="vs-ideal">
@@ -155,9 +167,8 @@ function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAna
           peak gain against an ideal straight dipole
           <span className="muted">
             {" "}
-            ({formatLength(band.ideal.lengthM, plan.units)} long at{" "}
-            {formatLength(band.ideal.heightM, plan.units)}, same ground; at this plan’s take-off angle{" "}
-            {formatDb(band.vsIdealAtTakeoffDb)})
+            ({formatLength(band.ideal.lengthM, units)} long at {formatLength(band.ideal.heightM, units)}, same
+            ground; at this plan’s take-off angle {formatDb(band.vsIdealAtTakeoffDb)})
           </span>
         </div>
       </div>
@@ -212,11 +223,11 @@ function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAna
             markDeg={band.takeoffDeg}
           />
         )}
-        {cutAz && (
+        {cutAz && azAngles && (
           <PolarPlot
             kind="azimuth"
             title={`Azimuth at ${band.takeoffDeg.toFixed(0)}°, true north up`}
-            anglesDeg={cutAz.anglesDeg.map((a) => a - plan.lot.northDeg)}
+            anglesDeg={azAngles}
             gainDbi={cutAz.gainDbi}
             markDeg={band.bearingDeg}
           />
@@ -224,7 +235,7 @@ function BandResults({ analysis, band }: { analysis: PlanAnalysis; band: BandAna
       </div>
     </>
   );
-}
+});
 
 function Warnings({ analysis }: { analysis: PlanAnalysis }) {
   const store = useAppStore();

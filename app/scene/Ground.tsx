@@ -1,6 +1,6 @@
 import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import * as THREE from "three";
 import type { Plan, Point2 } from "../../solver/plan/schema";
 import { formatLength, gridStepMetres, type LengthUnit } from "../units";
@@ -8,7 +8,9 @@ import { palette } from "./palette";
 import { YardLabel } from "./YardLabel";
 
 interface Props {
-  plan: Plan;
+  /** The lot and the unit only: a drag elsewhere in the plan leaves both unchanged, so no re-render. */
+  lot: Plan["lot"];
+  unit: LengthUnit;
   onGroundPointer: (e: ThreeEvent<PointerEvent>) => void;
 }
 
@@ -53,19 +55,18 @@ function gridGeometry(b: ReturnType<typeof lotBounds>, step: number, margin: num
 }
 
 /** The ground: a plane, a grid in the user's unit, the lot outline and a north marker. */
-export function Ground({ plan, onGroundPointer }: Props) {
-  const unit: LengthUnit = plan.units;
-  const b = lotBounds(plan.lot.outline);
+export const Ground = memo(function Ground({ lot, unit, onGroundPointer }: Props) {
+  const b = lotBounds(lot.outline);
   const step = gridStepMetres(unit);
-  const outlineKey = plan.lot.outline;
+  const outlineKey = lot.outline;
   // Rebuilt only when the lot or the unit changes, not on every edit elsewhere in the plan.
   const [minor, major] = useMemo(() => {
     const bounds = lotBounds(outlineKey);
     const m = bounds.size * 0.6;
     return [gridGeometry(bounds, step.minor, m), gridGeometry(bounds, step.major, m)];
   }, [outlineKey, step.minor, step.major]);
-  const outline = plan.lot.outline.map((p) => [p[0], p[1], 0.02] as [number, number, number]);
-  const north = (plan.lot.northDeg * Math.PI) / 180;
+  const outline = lot.outline.map((p) => [p[0], p[1], 0.02] as [number, number, number]);
+  const north = (lot.northDeg * Math.PI) / 180;
   // North marker beyond the lot's top-right corner, pointing at true north.
   const nx = b.maxX + 3;
   const ny = b.maxY + 1;
@@ -119,4 +120,4 @@ export function Ground({ plan, onGroundPointer }: Props) {
       />
     </group>
   );
-}
+});

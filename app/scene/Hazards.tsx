@@ -1,5 +1,5 @@
 import { Line } from "@react-three/drei";
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import * as THREE from "three";
 import type { KeepOut, Plan, Point2, Walkway } from "../../solver/plan/schema";
 import { useApp, useAppStore } from "../store/react";
@@ -94,7 +94,8 @@ function KeepOutItem({ k, selected }: { k: KeepOut; selected: boolean }) {
 }
 
 /** Walkways, keep-out areas and overhead power lines (drawn with a warning stripe). */
-export function Hazards({ plan }: { plan: Plan }) {
+// Memoised on the plan: a result arriving re-renders the scene around it, not this.
+export const Hazards = memo(function Hazards({ plan }: { plan: Plan }) {
   const selectedId = useApp((s) => s.selectedId);
   return (
     <group>
@@ -125,4 +126,4 @@ export function Hazards({ plan }: { plan: Plan }) {
       ))}
     </group>
   );
-}
+});

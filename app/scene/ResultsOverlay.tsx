@@ -1,4 +1,4 @@
-import { useLayoutEffect, useMemo, useRef } from "react";
+import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import * as THREE from "three";
 import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
 import type { Point3 } from "../../solver/plan/schema";
@@ -121,6 +121,8 @@ function Lobe({ band }: { band: BandAnalysis }) {
     g.computeVertexNormals();
     return g;
   }, [grid, band.centre.peakGainDbi]);
+  // A geometry passed by prop is ours to free: every result builds a new one.
+  useEffect(() => () => geo?.dispose(), [geo]);
   if (!geo) {
     return (
       <YardLabel

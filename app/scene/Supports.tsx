@@ -276,7 +276,7 @@ const FenceItem = memo(function FenceItem({ s, selected, hovered, drag, onHover 
 });
 
 /** Every support in the plan, selectable and draggable. */
-export function Supports({ plan }: { plan: Plan }) {
+export const Supports = memo(function Supports({ plan }: { plan: Plan }) {
   const selectedId = useApp((s) => s.selectedId);
   const hoverId = useApp((s) => s.hoverId);
   const hover = useApp((s) => s.hover);
@@ -306,4 +306,4 @@ export function Supports({ plan }: { plan: Plan }) {
       })}
     </group>
   );
-}
+});

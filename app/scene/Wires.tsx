@@ -1,5 +1,6 @@
 import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
+import { memo } from "react";
 import type { Plan, Point3, WireRun } from "../../solver/plan/schema";
 import { setFeed as setFeedAt } from "../plan/commands";
 import { fractionNearest, sketchRun } from "../plan/geometry";
@@ -11,7 +12,7 @@ import { YardLabel } from "./YardLabel";
 
 const mid = (a: Point3, b: Point3): Point3 => [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2, (a[2] + b[2]) / 2];
 
-function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUnit }) {
+const RunItem = memo(function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUnit }) {
   const store = useAppStore();
   const selectedId = useApp((s) => s.selectedId);
   const hoverId = useApp((s) => s.hoverId);
@@ -132,9 +133,9 @@ function RunItem({ plan, run, unit }: { plan: Plan; run: WireRun; unit: LengthUn
       )}
     </group>
   );
-}
+});
 
-export function Wires({ plan }: { plan: Plan }) {
+export const Wires = memo(function Wires({ plan }: { plan: Plan }) {
   return (
     <group>
       {plan.wireRuns.map((r) => (
@@ -142,4 +143,4 @@ export function Wires({ plan }: { plan: Plan }) {
       ))}
     </group>
   );
-}
+});

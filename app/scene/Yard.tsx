@@ -1,5 +1,5 @@
 import { Canvas, type ThreeEvent, useThree } from "@react-three/fiber";
-import { useEffect } from "react";
+import { useCallback, useEffect } from "react";
 import * as THREE from "three";
 import { sketchRun } from "../plan/geometry";
 import { freshness } from "../store/analysis-slice";
@@ -46,17 +46,21 @@ function Contents() {
   const showCurrents = useApp((s) => s.showCurrents);
   const showLobe = useApp((s) => s.showLobe);
   const b = lotBounds(plan.lot.outline);
-  const onGround = (e: ThreeEvent<PointerEvent>) => {
-    if (e.button !== 0) return;
-    // Let orbiting start on empty ground; only a tool turns a ground click into an edit.
-    const tool = store.getState().tool.kind;
-    if (tool === "select") {
-      if (e.delta < 2) store.getState().select(null);
-      return;
-    }
-    e.stopPropagation();
-    pickGround(store, [e.point.x, e.point.y], e.nativeEvent.shiftKey);
-  };
+  // Stable, so the memoised ground is not re-rendered for every result.
+  const onGround = useCallback(
+    (e: ThreeEvent<PointerEvent>) => {
+      if (e.button !== 0) return;
+      // Let orbiting start on empty ground; only a tool turns a ground click into an edit.
+      const tool = store.getState().tool.kind;
+      if (tool === "select") {
+        if (e.delta < 2) store.getState().select(null);
+        return;
+      }
+      e.stopPropagation();
+      pickGround(store, [e.point.x, e.point.y], e.nativeEvent.shiftKey);
+    },
+    [store],
+  );
   const band = result?.analysis.bands[0];
   const active =
     plan.wireRuns.find((r) => r.id === result?.analysis.activeRunId) ?? plan.wireRuns.find((r) => r.feed);
@@ -70,7 +74,7 @@ function Contents() {
       <directionalLight position={[-20, -30, 40]} intensity={1.4} />
       <CameraRig centre={[b.cx, b.cy]} size={b.size} />
       <ScreenProbe />
-      <Ground plan={plan} onGroundPointer={onGround} />
+      <Ground lot={plan.lot} unit={plan.units} onGroundPointer={onGround} />
       <Hazards plan={plan} />
       <Supports plan={plan} />
       <Wires plan={plan} />
