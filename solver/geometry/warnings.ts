@@ -45,7 +45,19 @@ export function geometryWarnings(mesh: Mesh, lambdaMin: number, tol: number): Wa
   const S = segs.start;
   const D = segs.dir;
   for (let i = 0; i < segs.n; i++) {
+    const hi = 0.5 * segs.len[i];
+    const mxi = S[3 * i] + D[3 * i] * hi;
+    const myi = S[3 * i + 1] + D[3 * i + 1] * hi;
+    const mzi = S[3 * i + 2] + D[3 * i + 2] * hi;
     for (let j = i + 1; j < segs.n; j++) {
+      // Cheap reject first (this loop is O(S²) and runs on every solve): the two segments are at
+      // least |mid_i − mid_j| − (ℓ_i + ℓ_j)/2 apart, so far pairs never reach the exact test below.
+      const hj = 0.5 * segs.len[j];
+      const dx = S[3 * j] + D[3 * j] * hj - mxi;
+      const dy = S[3 * j + 1] + D[3 * j + 1] * hj - myi;
+      const dz = S[3 * j + 2] + D[3 * j + 2] * hj - mzi;
+      const reach = hi + hj + (MIN_GAP_OVER_RADIUS + 1) * (segs.radius[i] + segs.radius[j]) + tol;
+      if (dx * dx + dy * dy + dz * dz > reach * reach) continue;
       const wi = wireOf[i];
       const wj = wireOf[j];
       const key = `${Math.min(wi, wj)}:${Math.max(wi, wj)}`;
