@@ -318,7 +318,7 @@ const cases: BenchCase[] = [
   luCase("ldlt-400", 400, ldltPair, true, 5, 15),
   zMatrixCase("zlu-200", false),
   zMatrixCase("zsym-200", true),
-  modelCase("yard-200", yardModel(PERFECT_GROUND, [14.15]), { patternStepDeg: 2 }, 20, 3, 11),
+  modelCase("yard-200", yardModel(PERFECT_GROUND, [14.15]), { patternStepDeg: 2 }, 20, 10, 31),
   modelCase(
     "sweep-41",
     yardModel(PERFECT_GROUND, { from: 14.0, to: 14.35, count: 41 }),
@@ -328,7 +328,7 @@ const cases: BenchCase[] = [
     5,
   ),
   // No target given for real ground yet: reported, not judged.
-  modelCase("yard-200-real", yardModel(AVERAGE_GROUND, [14.15]), { patternStepDeg: 2 }, undefined, 2, 7),
+  modelCase("yard-200-real", yardModel(AVERAGE_GROUND, [14.15]), { patternStepDeg: 2 }, undefined, 5, 15),
   planQuickCase(),
 ];
 
