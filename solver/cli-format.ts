@@ -1,18 +1,23 @@
 import type { FrequencyResult, SolveResult } from "./model/types";
 
 /** The CLI's `--json` shape for a wire model (the documented keys first; more may follow). */
-export function solveResultJson(result: SolveResult, withCurrents = false): object {
+export function solveResultJson(result: SolveResult, withCurrents = false, withPattern = false): object {
   return {
     segments: result.segments,
     unknowns: result.unknowns,
     groundMethod: result.groundMethod,
-    results: result.results.map((r) => frequencyJson(r, result, withCurrents)),
+    results: result.results.map((r) => frequencyJson(r, result, withCurrents, withPattern)),
     resonancesMHz: result.resonancesMHz.map((f) => round(f, 6)),
     warnings: result.warnings,
   };
 }
 
-function frequencyJson(r: FrequencyResult, result: SolveResult, withCurrents: boolean): object {
+function frequencyJson(
+  r: FrequencyResult,
+  result: SolveResult,
+  withCurrents: boolean,
+  withPattern: boolean,
+): object {
   const out: Record<string, unknown> = {
     mhz: round(r.mhz, 6),
     impedance: [round(r.impedance[0], 4), round(r.impedance[1], 4)],
@@ -31,6 +36,21 @@ function frequencyJson(r: FrequencyResult, result: SolveResult, withCurrents: bo
     },
     currents: r.currents.map((c) => ({ wire: c.wire, peakAmps: round(c.peakAmps, 6) })),
   };
+  if (withPattern && r.pattern) {
+    // Row-major [elevation][bearing], dBi: total and the two polarisations.
+    const p = r.pattern;
+    const rows = (a: Float64Array) =>
+      p.elevationsDeg.map((_, i) =>
+        Array.from(a.subarray(i * p.bearingsDeg.length, (i + 1) * p.bearingsDeg.length), (v) => round(v, 2)),
+      );
+    out.pattern = {
+      elevationsDeg: p.elevationsDeg,
+      bearingsDeg: p.bearingsDeg,
+      gainDbi: rows(p.gainDbi),
+      verticalDbi: rows(p.verticalDbi),
+      horizontalDbi: rows(p.horizontalDbi),
+    };
+  }
   if (withCurrents) {
     // Current at both ends of every segment, for 1 W accepted, in the wire's own order.
     const m = result.mesh;

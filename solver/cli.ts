@@ -1,5 +1,5 @@
 /**
- * Command-line door to the solver: `npm run solve -- model.json [--json] [--currents]`.
+ * Command-line door to the solver: `npm run solve -- model.json [--json] [--currents] [--pattern]`.
  * Bad input exits with status 2 and one line naming the problem; no stack traces for user errors.
  */
 import { readFileSync } from "node:fs";
@@ -10,7 +10,7 @@ import { parseWireModel } from "./model/schema";
 import { isPlanDocument, planReportJson, planReportText } from "./plan/cli-report";
 import { parsePlan } from "./plan/schema";
 
-const USAGE = "usage: npm run solve -- <model-or-plan.json> [--json] [--currents]";
+const USAGE = "usage: npm run solve -- <model-or-plan.json> [--json] [--currents] [--pattern]";
 
 function fail(message: string, code = 2): never {
   process.stderr.write(`${message}\n`);
@@ -21,7 +21,7 @@ function main(argv: string[]): void {
   const flags = new Set(argv.filter((a) => a.startsWith("--")));
   const files = argv.filter((a) => !a.startsWith("--"));
   for (const f of flags)
-    if (!["--json", "--currents", "--help"].includes(f)) fail(`unknown option ${f}\n${USAGE}`);
+    if (!["--json", "--currents", "--pattern", "--help"].includes(f)) fail(`unknown option ${f}\n${USAGE}`);
   if (flags.has("--help")) {
     process.stdout.write(`${USAGE}\n`);
     return;
@@ -48,9 +48,9 @@ function main(argv: string[]): void {
       return;
     }
     const model = parseWireModel(json);
-    const result = solveModel(model);
+    const result = solveModel(model, { keepPattern: flags.has("--pattern") });
     const out = flags.has("--json")
-      ? JSON.stringify(solveResultJson(result, flags.has("--currents")), null, 2)
+      ? JSON.stringify(solveResultJson(result, flags.has("--currents"), flags.has("--pattern")), null, 2)
       : solveResultText(result);
     process.stdout.write(`${out}\n`);
   } catch (e) {

@@ -74,6 +74,8 @@ export const computeFarField: FarFieldFn = (req) => {
   const rows = nE - first;
   if (uScratch.length < rows * nB) uScratch = new Float64Array(rows * nB);
   const u = uScratch;
+  // The vertically polarised (θ) share of U, kept only when the caller wants the whole grid.
+  const uV = req.keepPattern ? new Float64Array(rows * nB) : null;
   const scale = (ETA0 * k * k) / (32 * Math.PI * Math.PI);
 
   // Image weights per row: θ-part by wv, φ-part by wh (complex); the image's own components at e are
@@ -117,6 +119,7 @@ export const computeFarField: FarFieldFn = (req) => {
         bIm += whRe * mpIm + whIm * mpRe;
       }
       u[out + j] = scale * (aRe * aRe + aIm * aIm + bRe * bRe + bIm * bIm);
+      if (uV) uV[out + j] = scale * (aRe * aRe + aIm * aIm);
     }
   }
 
@@ -216,11 +219,19 @@ export const computeFarField: FarFieldFn = (req) => {
   };
   if (req.keepPattern) {
     const gainDbi = new Float64Array(rows * nB);
-    for (let q = 0; q < rows * nB; q++) gainDbi[q] = toDb(gainOf * u[q]);
+    const verticalDbi = new Float64Array(rows * nB);
+    const horizontalDbi = new Float64Array(rows * nB);
+    for (let q = 0; q < rows * nB; q++) {
+      gainDbi[q] = toDb(gainOf * u[q]);
+      verticalDbi[q] = toDb(gainOf * uV![q]);
+      horizontalDbi[q] = toDb(gainOf * (u[q] - uV![q]));
+    }
     summary.pattern = {
       elevationsDeg: Array.from(grid.elevationsDeg.subarray(first)),
       bearingsDeg: Array.from(grid.bearingsDeg),
       gainDbi,
+      verticalDbi,
+      horizontalDbi,
     };
   }
   return summary;

@@ -128,6 +128,10 @@ export interface PatternGrid {
   bearingsDeg: number[];
   /** Total gain in dBi, row-major [elevation][bearing]. */
   gainDbi: Float64Array;
+  /** The two polarisations, same layout: E_θ (vertical, in the plane of elevation) and E_φ (horizontal).
+   *  Their powers add up to the total. */
+  verticalDbi: Float64Array;
+  horizontalDbi: Float64Array;
 }
 
 export interface WireCurrentSummary {

@@ -63,6 +63,16 @@ describe("npm run solve", () => {
     expect(Array.isArray(out.warnings)).toBe(true);
   });
 
+  it("adds the far-field grid with both polarisations on --pattern", () => {
+    const r = run({ ...dipole, frequenciesMHz: [14.1] }, "--json", "--pattern");
+    expect(r.status).toBe(0);
+    const p = JSON.parse(r.stdout).results[0].pattern;
+    // Over ground: elevations 0..90 at the default 2° step, bearings 0..358.
+    expect(p.elevationsDeg).toHaveLength(46);
+    expect(p.bearingsDeg).toHaveLength(180);
+    for (const key of ["gainDbi", "verticalDbi", "horizontalDbi"]) expect(p[key]).toHaveLength(46);
+  });
+
   it("prints a readable table by default", () => {
     const r = run(dipole);
     expect(r.status).toBe(0);
