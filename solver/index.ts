@@ -9,6 +9,7 @@
  * (zero-length segments, points below ground, feeds on free ends, …) still throw ModelError with the
  * path of the offending field.
  */
+import { groundSystemWarnings } from "./analysis/ground-system";
 import { findResonances } from "./analysis/resonance";
 import { frequencyListMHz } from "./analysis/sweep";
 import { computeFarField } from "./fields/farfield";
@@ -143,8 +144,9 @@ export function solveModel(
   options: SolveOptions = {},
   hooks: EngineHooks = {},
 ): SolveResult {
-  const p = prepareModel(model, options, hooks);
+  const { prepared: p, internals } = prepareInternal(model, options, hooks);
   const results = p.solveSweep(p.frequenciesMHz.map((mhz) => mhz * 1e6));
+  const grounded = new Set(internals.meshDetail.groundPorts.map((g) => g.wire));
   const resonancesMHz = findResonances(
     results.map((r) => r.mhz),
     results.map((r) => r.impedance[1]),
@@ -154,7 +156,7 @@ export function solveModel(
     unknowns: p.unknowns,
     results,
     resonancesMHz,
-    warnings: p.warnings,
+    warnings: [...p.warnings, ...groundSystemWarnings(model, grounded, results)],
     mesh: p.mesh,
     groundMethod: p.groundMethod,
   };

@@ -277,7 +277,10 @@ function validateWire(model: WireModel, i: number, tol: number, ground: boolean)
     if (!p.every(Number.isFinite))
       throw new ModelError(`wires[${i}].points[${j}]`, "coordinates must be finite numbers");
     if (ground && p[2] < -tol) {
-      throw new ModelError(`wires[${i}].points[${j}]`, `point is below the ground (z = ${p[2]} m < 0)`);
+      throw new ModelError(
+        `wires[${i}].points[${j}]`,
+        `point is below the ground (z = ${p[2]} m < 0): buried wires are not modelled by any ground method here; for a driven rod give the wire that stands on z = 0 a groundConnection { "rod": { "length", "radius" } }, and lay radials on or just above the soil (z ≥ 0)`,
+      );
     }
     if (j > 0 && dist(p, w.points[j - 1]) <= tol) {
       throw new ModelError(`wires[${i}].points[${j}]`, "repeats the previous point (zero-length segment)");
