@@ -110,12 +110,14 @@ export const Ground = memo(function Ground({ lot, unit, onGroundPointer }: Props
           position={[dir[0] * (arrowLen * 0.5 + 1.3), dir[1] * (arrowLen * 0.5 + 1.3), 0]}
           center
           className="label label-north"
+          priority={2}
           text="N"
         />
       </group>
       <YardLabel
         position={[b.minX, b.minY - 1.2, 0]}
         className="label label-muted"
+        priority={0}
         text={`grid ${formatLength(step.minor, unit, 0)}, bold every ${formatLength(step.major, unit, 0)}`}
       />
     </group>

@@ -3,7 +3,7 @@ import * as THREE from "three";
 import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
 import type { Point3 } from "../../solver/plan/schema";
 import { currentColour, palette } from "./palette";
-import { YardLabel } from "./YardLabel";
+import { SAFETY, YardLabel } from "./YardLabel";
 
 /**
  * What the solver found, drawn on the yard: the current along every wire (colour and thickness by |I|,
@@ -178,6 +178,7 @@ export function ResultsOverlay({ analysis, band, stale, showCurrents, lobeAt }: 
           <YardLabel
             className="label label-danger"
             offset="translate(-50%, 16px)"
+            priority={SAFETY}
             text="⚡ high RF voltage"
           />
         </group>

@@ -93,6 +93,7 @@ const TreeItem = memo(function TreeItem({ s, unit, selected, hovered, drag, onHo
       <YardLabel
         position={[x, y, s.height]}
         className="label label-left"
+        priority={2}
         text={formatLength(s.height, unit)}
       />
     </group>
@@ -157,6 +158,7 @@ const MastItem = memo(function MastItem({ s, unit, selected, hovered, drag, onHo
       <YardLabel
         position={[x, y, s.height]}
         className={`label ${metal ? "label-metal" : ""}`}
+        priority={2}
         offset="translate(14px, -50%)"
         text={`${formatLength(s.height, unit)} · ${metal ? `metal, ${grounded ? "grounded" : "insulated"}` : s.material}`}
       />

@@ -8,7 +8,7 @@ import { useApp, useAppStore } from "../store/react";
 import { formatLength, type LengthUnit } from "../units";
 import { useDrag } from "./interaction";
 import { palette } from "./palette";
-import { YardLabel } from "./YardLabel";
+import { SAFETY, YardLabel } from "./YardLabel";
 
 const mid = (a: Point3, b: Point3): Point3 => [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2, (a[2] + b[2]) / 2];
 
@@ -116,9 +116,12 @@ const RunItem = memo(function RunItem({ plan, run, unit }: { plan: Plan; run: Wi
             dashSize={0.3}
             gapSize={0.2}
           />
+          {/* Half-way down the feed's drop line: clear of the wire's own labels up at the span. */}
           <YardLabel
+            position={[0, 0, -sketch.feedPoint[2] / 2]}
             className="label label-feed"
-            offset="translate(-50%, 14px)"
+            offset="translate(8px, -50%)"
+            priority={SAFETY}
             text={`feed · ${formatLength(sketch.feedPoint[2], unit)} up`}
           />
         </group>
@@ -128,6 +131,7 @@ const RunItem = memo(function RunItem({ plan, run, unit }: { plan: Plan; run: Wi
           position={labelAt}
           className="label label-small"
           offset="translate(-50%, -160%)"
+          priority={2}
           text={`${formatLength(sketch.length, unit)} of wire`}
         />
       )}

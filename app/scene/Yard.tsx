@@ -12,6 +12,7 @@ import { palette } from "./palette";
 import { ResultsOverlay } from "./ResultsOverlay";
 import { Supports } from "./Supports";
 import { Wires } from "./Wires";
+import { LabelDeclutter } from "./YardLabel";
 
 // The plan frame is z-up (x east, y north); draw in it directly so no coordinate ever needs swapping.
 THREE.Object3D.DEFAULT_UP.set(0, 0, 1);
@@ -74,6 +75,7 @@ function Contents() {
       <directionalLight position={[-20, -30, 40]} intensity={1.4} />
       <CameraRig centre={[b.cx, b.cy]} size={b.size} />
       <ScreenProbe />
+      <LabelDeclutter />
       <Ground lot={plan.lot} unit={plan.units} onGroundPointer={onGround} />
       <Hazards plan={plan} />
       <Supports plan={plan} />

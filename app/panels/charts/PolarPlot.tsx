@@ -24,8 +24,10 @@ export function PolarPlot({ kind, anglesDeg, gainDbi, markDeg, size = 168, title
   const cx = size / 2;
   const half = kind === "elevation";
   const R = size / 2 - 14;
-  const cy = half ? size / 2 + R / 2 - 4 : size / 2;
-  const h = half ? R + 24 : size;
+  // Half plot: room above for the 30°/60° ticks (at R + 8) and below the horizon for the ring labels
+  // (at cy + 10), so neither the lobe nor a label falls outside the picture.
+  const cy = half ? R + 12 : size / 2;
+  const h = half ? R + 26 : size;
   const radius = (g: number) => ((Math.max(floor, Number.isFinite(g) ? g : floor) - floor) / RANGE_DB) * R;
   // Screen angle: elevation measured from the +x horizon counter-clockwise; azimuth clockwise from up.
   const at = (deg: number, r: number): [number, number] => {

@@ -24,7 +24,8 @@ export function SwrChart({
   height = 170,
 }: Props) {
   if (points.length < 2) return <p className="muted">No sweep yet.</p>;
-  const pad = { l: 34, r: 10, t: 10, b: 30 };
+  // Right padding wide enough for the centred upper-edge frequency label ("14.350").
+  const pad = { l: 34, r: 20, t: 10, b: 30 };
   const f0 = Math.min(points[0].mhz, bandLowMHz);
   const f1 = Math.max(points[points.length - 1].mhz, bandHighMHz);
   const span = f1 - f0 || 1;
