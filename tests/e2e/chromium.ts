@@ -36,3 +36,18 @@ export const webServer = {
   stdout: "ignore" as const,
   stderr: "pipe" as const,
 };
+
+/**
+ * The dev server (`npm start`), for the one check of what developers see: React's development build
+ * reports problems (e.g. nested roots unmounted mid-render) that the production build keeps quiet.
+ */
+export const DEV_PORT = Number(process.env.E2E_DEV_PORT ?? 5174);
+export const devServer = {
+  command: `npx vite --port ${DEV_PORT} --strictPort --host 127.0.0.1`,
+  url: `http://127.0.0.1:${DEV_PORT}/`,
+  cwd: webServer.cwd,
+  reuseExistingServer: false,
+  timeout: 120_000,
+  stdout: "ignore" as const,
+  stderr: "pipe" as const,
+};

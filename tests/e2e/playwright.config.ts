@@ -1,5 +1,5 @@
 import { defineConfig } from "@playwright/test";
-import { chromiumLaunch, PORT, webServer } from "./chromium";
+import { chromiumLaunch, devServer, PORT, webServer } from "./chromium";
 
 // The editor's browser checks. Kept to a couple of minutes: few tests, one browser, two workers at most.
 export default defineConfig({
@@ -20,5 +20,5 @@ export default defineConfig({
     trace: "off",
     screenshot: "only-on-failure",
   },
-  webServer,
+  webServer: [webServer, devServer],
 });
