@@ -8,7 +8,7 @@ import { useApp, useAppStore } from "../store/react";
 import { formatLength, type LengthUnit } from "../units";
 import { useDrag } from "./interaction";
 import { palette } from "./palette";
-import { SAFETY, YardLabel } from "./YardLabel";
+import { FEED, YardLabel } from "./YardLabel";
 
 const mid = (a: Point3, b: Point3): Point3 => [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2, (a[2] + b[2]) / 2];
 
@@ -121,7 +121,7 @@ const RunItem = memo(function RunItem({ plan, run, unit }: { plan: Plan; run: Wi
             position={[0, 0, -sketch.feedPoint[2] / 2]}
             className="label label-feed"
             offset="translate(8px, -50%)"
-            priority={SAFETY}
+            priority={FEED}
             text={`feed · ${formatLength(sketch.feedPoint[2], unit)} up`}
           />
         </group>

@@ -30,8 +30,10 @@ interface Props {
   priority?: number;
 }
 
-/** Labels that must stay readable: the high-voltage warnings and the feed. */
+/** Labels that must stay readable: the high-voltage warnings. */
 export const SAFETY = 3;
+/** The feed: above the other labels, but it gives way to a warning (its teal marker stays). */
+export const FEED = 2.5;
 
 /** One label as the declutter pass sees it: its screen box, measured once per text. */
 interface Entry {
