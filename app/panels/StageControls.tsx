@@ -1,13 +1,5 @@
 import { useApp, useAppStore } from "../store/react";
-import { formatLength, type LengthUnit, METRES_PER_FOOT, toDisplay } from "../units";
-
-/** Snap steps offered, in metres (the store's unit), chosen to be round numbers in the user's unit. */
-const SNAP_STEPS: Record<LengthUnit, number[]> = {
-  m: [0.1, 0.5, 1],
-  ft: [0.5 * METRES_PER_FOOT, 1 * METRES_PER_FOOT, 5 * METRES_PER_FOOT],
-};
-
-const sameStep = (a: number, b: number) => Math.abs(a - b) < 1e-9;
+import { formatStep, snapChoices, snapStepAfterUnitSwitch } from "../units";
 
 /** Camera views, overlays, snap and units: floating over the top right of the yard. */
 export function StageControls() {
@@ -17,14 +9,6 @@ export function StageControls() {
   const showCurrents = useApp((s) => s.showCurrents);
   const snapStep = useApp((s) => s.snapStep);
   const s = store.getState();
-  const steps = SNAP_STEPS[units];
-  // A step from the other unit (after undo or opening a file) stays selectable, shown in this unit.
-  const extra = snapStep !== null && !steps.some((m) => sameStep(m, snapStep)) ? snapStep : null;
-  const stepLabel = (m: number) => {
-    const v = toDisplay(m, units);
-    const whole = (k: number) => Math.abs(v * k - Math.round(v * k)) < 1e-6;
-    return formatLength(m, units, whole(1) ? 0 : whole(10) ? 1 : 2);
-  };
   return (
     <div className="stage-controls">
       <fieldset className="stage-group" aria-label="View">
@@ -60,9 +44,10 @@ export function StageControls() {
             aria-label="Snap step"
           >
             <option value="off">off</option>
-            {(extra === null ? steps : [...steps, extra].sort((a, b) => a - b)).map((m) => (
+            {/* A step from the other unit (after undo or opening a file) stays shown, in this unit. */}
+            {snapChoices(units, snapStep).map((m) => (
               <option key={m} value={String(m)}>
-                {stepLabel(m)}
+                {formatStep(m, units)}
               </option>
             ))}
           </select>
@@ -76,9 +61,7 @@ export function StageControls() {
               const u = e.target.value === "ft" ? "ft" : "m";
               s.applyEdit((p) => (p.units === u ? p : { ...p, units: u }), "immediately");
               // Keep the snap a round step in the new unit: the one in the same place on its list.
-              const step = store.getState().snapStep;
-              const i = step === null ? -1 : SNAP_STEPS[units].findIndex((m) => sameStep(m, step));
-              if (i >= 0) s.setSnap(SNAP_STEPS[u][i]);
+              s.setSnap(snapStepAfterUnitSwitch(store.getState().snapStep, units, u));
             }}
           >
             <option value="m">metres</option>
