@@ -1,6 +1,6 @@
 import { Line } from "@react-three/drei";
 import type { ThreeEvent } from "@react-three/fiber";
-import { memo, useMemo } from "react";
+import { memo, useEffect, useMemo } from "react";
 import * as THREE from "three";
 import type { Plan, Point2 } from "../../solver/plan/schema";
 import { formatLength, gridStepMetres, type LengthUnit } from "../units";
@@ -65,6 +65,14 @@ export const Ground = memo(function Ground({ lot, unit, onGroundPointer }: Props
     const m = bounds.size * 0.6;
     return [gridGeometry(bounds, step.minor, m), gridGeometry(bounds, step.major, m)];
   }, [outlineKey, step.minor, step.major]);
+  // Geometries passed by prop are ours to free when the lot or the unit changes.
+  useEffect(
+    () => () => {
+      minor.dispose();
+      major.dispose();
+    },
+    [minor, major],
+  );
   const outline = lot.outline.map((p) => [p[0], p[1], 0.02] as [number, number, number]);
   const north = (lot.northDeg * Math.PI) / 180;
   // North marker beyond the lot's top-right corner, pointing at true north.
