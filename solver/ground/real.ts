@@ -21,6 +21,7 @@
 import { EPS0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { GroundMethod } from "../model/types";
+import { findRuns, PairCache } from "../mom/pair-cache";
 import { pairIntegrals } from "../mom/pair-integrals";
 import { gaussRule, type Rule } from "../mom/quadrature";
 import { connectionImpedance, connectionResistance } from "./connection";
@@ -173,7 +174,9 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
               ? gaussRule(2)
               : gaussRule(1);
 
-  const sommerfeldPair = (p: number, q: number, out: Float64Array) => {
+  // The Sommerfeld pair term (κ-image + remainder) written into out (overwritten, not added).
+  const sommerfeldPairTerm = (p: number, q: number, out: Float64Array) => {
+    for (let i = 0; i < 10; i++) out[i] = 0;
     // Quasi-static image: κ × the perfect-image terms (perfect adds −(t̂_p·M.dir)J and −J00).
     pairIntegrals(P, p, M, q, k, j);
     const dot =
@@ -207,7 +210,9 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
         const sz = P.start[q3 + 2] + v * lq * P.dir[q3 + 2];
         const dx = ox - sx;
         const dy = oy - sy;
-        lookupRemainder(t, Math.hypot(dx, dy), Math.max(0, oz + sz), I);
+        // sqrt, not Math.hypot: this runs ~10⁴ times per fill and hypot is several times slower in V8
+        // (no overflow risk at metre scales).
+        lookupRemainder(t, Math.sqrt(dx * dx + dy * dy), Math.max(0, oz + sz), I);
         contractRemainder(I, k, dx, dy, P.dir, p3, P.dir, q3, c);
         const wt = rule.w[a] * rule.w[b] * lp * lq;
         const gr = wt * c[0];
@@ -222,6 +227,22 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
         out[7] += u * v * gi;
       }
     }
+  };
+  // The whole reflected term depends on observer and source only through the observer-to-image offset
+  // (ρ and z + z′ of the half-space field, the κ-image's R̃, and the Gauss rule chosen from the
+  // midpoint-to-image distance), so it repeats along straight evenly cut runs exactly like the perfect
+  // image does: Toeplitz for horizontal runs (and a droop against its mirror-image droop), Hankel for
+  // vertical ones (a mast against itself, where the near-ground pairs need up to 10 × 10 lookups).
+  // Cached per translation class and frequency with the run cache the perfect ground uses; results are
+  // the same up to rounding (only the absolute coordinates of the Gauss points differ).
+  const pairTerm = new Float64Array(10);
+  const sommerfeldCache = new PairCache(P, M, findRuns(P, setup.wireOfSegment), true, {
+    width: 10,
+    compute: sommerfeldPairTerm,
+  });
+  const sommerfeldPair = (p: number, q: number, out: Float64Array) => {
+    sommerfeldCache.get(p, q, pairTerm);
+    for (let i = 0; i < 10; i++) out[i] += pairTerm[i];
   };
 
   return {
@@ -254,6 +275,7 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
         // the table) only at the three frequencies it interpolates from.
         table = undefined;
         tableParams = { k0: k, epsRe: permittivity, epsIm };
+        sommerfeldCache.begin(k);
       }
     },
     pairTerms(p: number, q: number, out: Float64Array) {

@@ -25,6 +25,13 @@ export interface SommerfeldTable {
   data: Float64Array;
   rMin: number;
   rMax: number;
+  /**
+   * 1 / ∏_{b≠a}(x_a − x_b) for the 4-node Lagrange stencil starting at each node s, [s·4 + a], for the
+   * R′ and θ′ nodes: the fill looks the table up some 10⁴ times per frequency, and these divisions
+   * were a good part of each lookup.
+   */
+  rDen: Float64Array;
+  tDen: Float64Array;
 }
 
 export interface TableOptions {
@@ -70,15 +77,32 @@ export function buildSommerfeldTable(h: HalfSpaceParams, opt: TableOptions): Som
       }
     }
   }
+  const rNodes = Float64Array.from(rs);
+  const tNodes = Float64Array.from(ts);
   return {
     ctx,
     k0: h.k0,
-    rNodes: Float64Array.from(rs),
-    tNodes: Float64Array.from(ts),
+    rNodes,
+    tNodes,
     data,
     rMin,
     rMax: rs[rs.length - 1],
+    rDen: stencilDenominators(rNodes),
+    tDen: stencilDenominators(tNodes),
   };
+}
+
+/** The Lagrange denominators of every 4-node stencil (SommerfeldTable.rDen). */
+function stencilDenominators(nodes: Float64Array): Float64Array {
+  const den = new Float64Array(4 * Math.max(0, nodes.length - 3));
+  for (let s = 0; s + 3 < nodes.length; s++) {
+    for (let a = 0; a < 4; a++) {
+      let v = 1;
+      for (let b = 0; b < 4; b++) if (b !== a) v *= nodes[s + a] - nodes[s + b];
+      den[4 * s + a] = 1 / v;
+    }
+  }
+  return den;
 }
 
 /** Index i with nodes[i] ≤ x < nodes[i+1], clamped so i−1 … i+2 exist where possible. */
@@ -93,14 +117,20 @@ function stencilStart(nodes: Float64Array, x: number): number {
   return Math.max(0, Math.min(nodes.length - 4, lo - 1));
 }
 
-/** Lagrange weights of the 4 nodes starting at s for abscissa x. */
-function lagrange4(nodes: Float64Array, s: number, x: number, w: Float64Array): void {
-  for (let a = 0; a < 4; a++) {
-    let v = 1;
-    const xa = nodes[s + a];
-    for (let b = 0; b < 4; b++) if (b !== a) v *= (x - nodes[s + b]) / (xa - nodes[s + b]);
-    w[a] = v;
-  }
+/**
+ * Lagrange weights of the 4 nodes starting at s for abscissa x, with the stencil's precomputed
+ * denominators (den[4s + a]): w_a = ∏_{b≠a}(x − x_b) · den_a.
+ */
+function lagrange4(nodes: Float64Array, den: Float64Array, s: number, x: number, w: Float64Array): void {
+  const d0 = x - nodes[s];
+  const d1 = x - nodes[s + 1];
+  const d2 = x - nodes[s + 2];
+  const d3 = x - nodes[s + 3];
+  const o = 4 * s;
+  w[0] = d1 * d2 * d3 * den[o];
+  w[1] = d0 * d2 * d3 * den[o + 1];
+  w[2] = d0 * d1 * d3 * den[o + 2];
+  w[3] = d0 * d1 * d2 * den[o + 3];
 }
 
 const wr = new Float64Array(4);
@@ -111,23 +141,54 @@ const wt = new Float64Array(4);
  * height Z, into out[0..9]. Throws if (ρ, Z) lies beyond the table (a bug: the table is sized from the model).
  */
 export function lookupRemainder(t: SommerfeldTable, rho: number, Z: number, out: Float64Array): void {
-  const Rtrue = Math.hypot(rho, Z);
+  const Rtrue = Math.sqrt(rho * rho + Z * Z); // not Math.hypot: per lookup, and much slower in V8
   if (Rtrue > t.rMax) throw new Error(`Sommerfeld table too small: R′ = ${Rtrue} m > ${t.rMax} m`);
   const R = Math.max(Rtrue, t.rMin);
   const theta = Math.atan2(rho, Z);
   const nT = t.tNodes.length;
   const sr = stencilStart(t.rNodes, R);
   const st = stencilStart(t.tNodes, theta);
-  lagrange4(t.rNodes, sr, R, wr);
-  lagrange4(t.tNodes, st, theta, wt);
-  for (let c = 0; c < 10; c++) out[c] = 0;
+  lagrange4(t.rNodes, t.rDen, sr, R, wr);
+  lagrange4(t.tNodes, t.tDen, st, theta, wt);
+  // The 4 × 4 stencil, accumulated in locals (the θ′ nodes of one R′ node are contiguous in data).
+  const data = t.data;
+  let o0 = 0;
+  let o1 = 0;
+  let o2 = 0;
+  let o3 = 0;
+  let o4 = 0;
+  let o5 = 0;
+  let o6 = 0;
+  let o7 = 0;
+  let o8 = 0;
+  let o9 = 0;
   for (let a = 0; a < 4; a++) {
-    for (let b = 0; b < 4; b++) {
-      const w = wr[a] * wt[b];
-      const o = ((sr + a) * nT + st + b) * 10;
-      for (let c = 0; c < 10; c++) out[c] += w * t.data[o + c];
+    const ra = wr[a];
+    let o = ((sr + a) * nT + st) * 10;
+    for (let b = 0; b < 4; b++, o += 10) {
+      const w = ra * wt[b];
+      o0 += w * data[o];
+      o1 += w * data[o + 1];
+      o2 += w * data[o + 2];
+      o3 += w * data[o + 3];
+      o4 += w * data[o + 4];
+      o5 += w * data[o + 5];
+      o6 += w * data[o + 6];
+      o7 += w * data[o + 7];
+      o8 += w * data[o + 8];
+      o9 += w * data[o + 9];
     }
   }
+  out[0] = o0;
+  out[1] = o1;
+  out[2] = o2;
+  out[3] = o3;
+  out[4] = o4;
+  out[5] = o5;
+  out[6] = o6;
+  out[7] = o7;
+  out[8] = o8;
+  out[9] = o9;
   // Undo F = R′ e^{jk0R′} I with the true R′ (1/R′ behaviour below the first node).
   const pr = Math.cos(t.k0 * Rtrue) / Rtrue;
   const pi = -Math.sin(t.k0 * Rtrue) / Rtrue;
@@ -156,7 +217,7 @@ export function contractRemainder(
   qo: number,
   out: Float64Array,
 ): void {
-  const rho = Math.hypot(dx, dy);
+  const rho = Math.sqrt(dx * dx + dy * dy); // not Math.hypot (hot path; see lookupRemainder)
   let rx = 0;
   let ry = 0;
   if (rho > 0) {

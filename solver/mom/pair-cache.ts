@@ -7,6 +7,11 @@
  * segment vectors are opposite (a vertical run and its image), the pair depends on i + j (Hankel).
  * A dipole of N segments then needs N pair integrals instead of N²/2. Results are identical up to
  * rounding (the geometry is the same, only translated).
+ *
+ * The same classes serve any pair quantity that depends only on the relative geometry of p and q: the
+ * reflected field of a flat ground (perfect or lossy) depends on the observer and the source's image
+ * only through their difference (ρ, z + z′), so a ground's whole pair term may be cached here against
+ * the mirrored set, with its own `compute` and `width` (real.ts does this for the Sommerfeld terms).
  */
 import { pairIntegrals } from "./pair-integrals";
 import type { SegmentSet } from "./segments";
@@ -55,8 +60,16 @@ export function findRuns(S: SegmentSet, wireOfSegment: Int32Array): Runs {
   return { runOf, index, length: Int32Array.from(lengths), first: Int32Array.from(firsts) };
 }
 
+/** A pair quantity to cache instead of pairIntegrals: writes `width` numbers for (p, q) into out. */
+export interface PairQuantity {
+  width: number;
+  compute(p: number, q: number, out: Float64Array): void;
+}
+
 export class PairCache {
   private readonly nRuns: number;
+  private readonly width: number;
+  private readonly compute: (p: number, q: number, out: Float64Array) => void;
   /** Per run pair (A·nRuns + B): slot base in the pool, −1 when the pair is not translation-equivalent. */
   private readonly base: Int32Array;
   /** 1: key j − i (Toeplitz), 2: key i + j (Hankel). */
@@ -71,7 +84,13 @@ export class PairCache {
     private readonly Q: SegmentSet,
     private readonly runs: Runs,
     enabled = true,
+    quantity?: PairQuantity,
   ) {
+    this.width = quantity?.width ?? 8;
+    this.compute = quantity
+      ? quantity.compute
+      : (p: number, q: number, out: Float64Array) => pairIntegrals(this.P, p, this.Q, q, this.k, out);
+    const width = this.width;
     const nR = runs.length.length;
     this.nRuns = nR;
     this.base = new Int32Array(nR * nR).fill(-1);
@@ -96,13 +115,13 @@ export class PairCache {
         const m = plus <= 1e-12 * la ? 1 : minus <= 1e-12 * la ? 2 : 0;
         if (m === 0 || !enabled) continue;
         const slots = runs.length[A] + runs.length[B] - 1;
-        if ((size + slots) * 8 > MAX_POOL) continue;
+        if ((size + slots) * width > MAX_POOL) continue;
         this.base[A * nR + B] = size;
         this.mode[A * nR + B] = m;
         size += slots;
       }
     }
-    this.pool = new Float64Array(8 * size);
+    this.pool = new Float64Array(width * size);
     this.stamp = new Uint32Array(size);
   }
 
@@ -112,7 +131,7 @@ export class PairCache {
     this.epoch++;
   }
 
-  /** pairIntegrals(P, p, Q, q, k) into out, computed once per translation class. */
+  /** pairIntegrals(P, p, Q, q, k) (or the given quantity) into out, computed once per translation class. */
   get(p: number, q: number, out: Float64Array): void {
     const r = this.runs;
     const A = r.runOf[p];
@@ -120,18 +139,19 @@ export class PairCache {
     const key = A * this.nRuns + B;
     const b = this.base[key];
     if (b < 0) {
-      pairIntegrals(this.P, p, this.Q, q, this.k, out);
+      this.compute(p, q, out);
       return;
     }
     const slot =
       b + (this.mode[key] === 1 ? r.index[q] - r.index[p] + r.length[A] - 1 : r.index[q] + r.index[p]);
-    const o = 8 * slot;
+    const wd = this.width;
+    const o = wd * slot;
     if (this.stamp[slot] === this.epoch) {
-      for (let i = 0; i < 8; i++) out[i] = this.pool[o + i];
+      for (let i = 0; i < wd; i++) out[i] = this.pool[o + i];
       return;
     }
-    pairIntegrals(this.P, p, this.Q, q, this.k, out);
-    for (let i = 0; i < 8; i++) this.pool[o + i] = out[i];
+    this.compute(p, q, out);
+    for (let i = 0; i < wd; i++) this.pool[o + i] = out[i];
     this.stamp[slot] = this.epoch;
   }
 }
