@@ -234,7 +234,10 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
   // image does: Toeplitz for horizontal runs (and a droop against its mirror-image droop), Hankel for
   // vertical ones (a mast against itself, where the near-ground pairs need up to 10 × 10 lookups).
   // Cached per translation class and frequency with the run cache the perfect ground uses; results are
-  // the same up to rounding (only the absolute coordinates of the Gauss points differ).
+  // the same up to rounding (only the absolute coordinates of the Gauss points differ), except that a
+  // pair whose midpoint-to-image distance sits exactly on a Gauss-rule threshold (a mast: d is a whole
+  // number of segment lengths) now takes its class's choice instead of its own rounding's — on the
+  // yard benchmark model that moves the feed impedance by ~1e-6 relative.
   const pairTerm = new Float64Array(10);
   const sommerfeldCache = new PairCache(P, M, findRuns(P, setup.wireOfSegment), true, {
     width: 10,
