@@ -14,26 +14,29 @@ export function snap(v: number, step: number | null): number {
   return step ? round(v, step) : v;
 }
 
-function mapSupport(plan: Plan, id: string, f: (s: Support) => Support): Plan {
+/**
+ * The list with element `id` replaced by f(element), or the very same list when f changed nothing, so
+ * unchanged plans keep their identity (the store and the undo history compare by reference).
+ */
+function replaceById<T extends { id: string }>(list: T[], id: string, f: (x: T) => T): T[] {
   let changed = false;
-  const supports = plan.supports.map((s) => {
-    if (s.id !== id) return s;
-    const next = f(s);
-    if (next !== s) changed = true;
+  const out = list.map((x) => {
+    if (x.id !== id) return x;
+    const next = f(x);
+    if (next !== x) changed = true;
     return next;
   });
-  return changed ? { ...plan, supports } : plan;
+  return changed ? out : list;
+}
+
+function mapSupport(plan: Plan, id: string, f: (s: Support) => Support): Plan {
+  const supports = replaceById(plan.supports, id, f);
+  return supports === plan.supports ? plan : { ...plan, supports };
 }
 
 function mapRun(plan: Plan, id: string, f: (r: WireRun) => WireRun): Plan {
-  let changed = false;
-  const wireRuns = plan.wireRuns.map((r) => {
-    if (r.id !== id) return r;
-    const next = f(r);
-    if (next !== r) changed = true;
-    return next;
-  });
-  return changed ? { ...plan, wireRuns } : plan;
+  const wireRuns = replaceById(plan.wireRuns, id, f);
+  return wireRuns === plan.wireRuns ? plan : { ...plan, wireRuns };
 }
 
 function mapAnchors(plan: Plan, f: (a: Anchor) => Anchor): Plan {
