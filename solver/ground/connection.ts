@@ -132,7 +132,7 @@ export function connectionImpedance(
   return { ohms: [(r.ohms * s * s) / d, (-r.ohms * s * b) / d], model: r.model, label: r.label };
 }
 
-function formatOhms(ohms: number): string {
+export function formatOhms(ohms: number): string {
   if (ohms >= 1e3) return `${(ohms / 1e3).toPrecision(3)} kΩ`;
   return `${ohms.toPrecision(3)} Ω`;
 }

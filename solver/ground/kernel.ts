@@ -85,4 +85,18 @@ export interface GroundKernel {
    * ground at the current frequency. Return false for an ideal connection (nothing added).
    */
   nodeImpedance(wireIndex: number, out: Float64Array): boolean;
+  /**
+   * Rigorous bare contact (real ground, Sommerfeld): true when the current at the z = 0 end of wire
+   * `wireIndex` enters the soil there, as a point source at the surface. out = [re, im] of the factor
+   * 1 − κ (κ = (ε_c − 1)/(ε_c + 1) at this frequency) by which the free-space kernel of the charge that
+   * current deposits in the soil is multiplied: its direct field plus its quasi-static image. The rest
+   * of that charge's reflected field is already in the Sommerfeld remainder, which acts on the half
+   * triangle's current right up to its end (solver/mom/soil-contact.ts). Absent or false: no such term.
+   */
+  soilContact?(wireIndex: number, out: Float64Array): boolean;
+  /**
+   * How the z = 0 end of wire `wireIndex` joins the ground, for reports: e.g. "ideal connection (…)",
+   * "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)". Undefined in free space.
+   */
+  connectionLabel?(wireIndex: number): string | undefined;
 }

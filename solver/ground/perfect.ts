@@ -37,5 +37,8 @@ export function perfectGround(setup: GroundSetup): GroundKernel {
     nodeImpedance() {
       return false;
     },
+    connectionLabel() {
+      return "ideal connection (perfect ground)";
+    },
   };
 }

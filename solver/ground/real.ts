@@ -24,7 +24,7 @@ import type { GroundMethod } from "../model/types";
 import { findRuns, PairCache } from "../mom/pair-cache";
 import { pairIntegrals } from "../mom/pair-integrals";
 import { gaussRule, type Rule } from "../mom/quadrature";
-import { connectionImpedance, connectionResistance } from "./connection";
+import { connectionImpedance, connectionResistance, formatOhms } from "./connection";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 import type { ResolvedRealGround } from "./presets";
 import { type ReflectionWeights, reflectionPairTerms } from "./reflection";
@@ -148,6 +148,12 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       `wires[${wi}].groundConnection`,
     );
   }
+  // A bare contact under the rigorous method: its current enters the soil as a point source at the
+  // surface, carried by the fill (solver/mom/soil-contact.ts) instead of a lumped estimate. Under
+  // "reflection" the plane-wave weights cannot represent a charge on the interface (at grazing they
+  // cancel it), so the hemisphere estimate stays there.
+  const rigorousContact = (wi: number) =>
+    method === "sommerfeld" && (setup.connections[wi] ?? "contact") === "contact";
   const connectionZ = (wi: number) =>
     connectionImpedance(
       setup.connections[wi] ?? "contact",
@@ -289,11 +295,25 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       }
     },
     nodeImpedance(wireIndex: number, out: Float64Array) {
+      if (rigorousContact(wireIndex)) return false; // the fill carries it (soilContact)
       const z = connectionZ(wireIndex);
       if (z.model === "ideal") return false;
       out[0] = z.ohms[0];
       out[1] = z.ohms[1];
       return true;
+    },
+    soilContact(wireIndex: number, out: Float64Array) {
+      if (!rigorousContact(wireIndex)) return false;
+      out[0] = 1 - kapRe;
+      out[1] = -kapIm;
+      return true;
+    },
+    connectionLabel(wireIndex: number) {
+      const conn = setup.connections[wireIndex] ?? "contact";
+      const path = `wires[${wireIndex}].groundConnection`;
+      const r = connectionResistance(conn, conductivity, wireRadius.get(wireIndex) ?? 0, path);
+      if (!rigorousContact(wireIndex)) return r.label;
+      return `bare contact: the current enters the soil at the wire's end, solved with the Sommerfeld ground (a hemisphere of the wire's radius: ≈${formatOhms(r.ohms)} at d.c.)`;
     },
   };
 }
