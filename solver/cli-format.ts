@@ -1,4 +1,4 @@
-import type { FrequencyResult, SolveResult } from "./model/types";
+import { type FrequencyResult, groundMethodWords, type SolveResult } from "./model/types";
 
 /** The CLI's `--json` shape for a wire model (the documented keys first; more may follow). */
 export function solveResultJson(result: SolveResult, withCurrents = false, withPattern = false): object {
@@ -6,6 +6,7 @@ export function solveResultJson(result: SolveResult, withCurrents = false, withP
     segments: result.segments,
     unknowns: result.unknowns,
     groundMethod: result.groundMethod,
+    groundConnections: result.groundConnections,
     results: result.results.map((r) => frequencyJson(r, result, withCurrents, withPattern)),
     resonancesMHz: result.resonancesMHz.map((f) => round(f, 6)),
     warnings: result.warnings,
@@ -77,9 +78,9 @@ const pad = (s: string, n: number) => s.padStart(n);
 /** A readable table: one row per frequency, then resonances and warnings. */
 export function solveResultText(result: SolveResult): string {
   const lines: string[] = [];
-  lines.push(
-    `${result.segments} segments, ${result.unknowns} unknowns, ground: ${result.groundMethod}. Currents for 1 W accepted.`,
-  );
+  lines.push(`${result.segments} segments, ${result.unknowns} unknowns. Currents for 1 W accepted.`);
+  lines.push(`ground: ${groundMethodWords(result.groundMethod)} (groundMethod "${result.groundMethod}")`);
+  for (const c of result.groundConnections) lines.push(`  wire "${c.wire}" to ground: ${c.label}`);
   lines.push("");
   lines.push(
     [

@@ -20,7 +20,15 @@ import type { GroundKernel } from "./ground/kernel";
 import { realGroundKernel } from "./ground/real";
 import { MU0 } from "./model/constants";
 import { conductivityOf } from "./model/materials";
-import type { FrequencyResult, MeshView, SolveOptions, SolveResult, Warning, WireModel } from "./model/types";
+import type {
+  FrequencyResult,
+  GroundConnectionReport,
+  MeshView,
+  SolveOptions,
+  SolveResult,
+  Warning,
+  WireModel,
+} from "./model/types";
 import { type RealGroundFactory, selectGround } from "./mom/ground-select";
 import { type FrequencySolveOptions, type MomSolver, makeMomSolver } from "./mom/prepare";
 import { mirrorSegmentSet } from "./mom/segments";
@@ -31,6 +39,8 @@ export interface PreparedModel {
   readonly unknowns: number;
   readonly warnings: Warning[];
   readonly groundMethod: string;
+  /** How each wire with a z = 0 end joins the ground (model order), as the ground kernel models it. */
+  readonly groundConnections: GroundConnectionReport[];
   /** Frequencies of the model, MHz. */
   readonly frequenciesMHz: number[];
   /** Solve at one frequency (Hz). Options default to those given to prepareModel. */
@@ -101,11 +111,31 @@ export function prepareInternal(
     unknowns: solver.unknowns,
     warnings,
     groundMethod: kernel.method,
+    groundConnections: groundConnectionReports(model, mesh, kernel),
     frequenciesMHz: freqs,
     solveAt: (hz, opts) => solver.solveAt(hz, { ...defaults, ...opts }),
     solveSweep: (hz, opts) => solver.solveSweep(hz, { ...defaults, ...opts }),
   };
   return { prepared, internals: { meshDetail: mesh, ground: kernel, solver } };
+}
+
+/**
+ * One report per wire the mesh joined to the ground (a wire with both ends on z = 0 is listed once), in
+ * model order. The words come from the ground kernel, which alone knows what it solved (a rod's estimate,
+ * a rigorous bare contact, an ideal tie); a kernel without labels (free space) reports none.
+ */
+function groundConnectionReports(
+  model: WireModel,
+  mesh: Mesh,
+  kernel: GroundKernel,
+): GroundConnectionReport[] {
+  const wires = [...new Set(mesh.groundPorts.map((g) => g.wire))].sort((a, b) => a - b);
+  const out: GroundConnectionReport[] = [];
+  for (const wi of wires) {
+    const label = kernel.connectionLabel?.(wi);
+    if (label !== undefined) out.push({ wire: model.wires[wi].id, label });
+  }
+  return out;
 }
 
 /**
@@ -159,6 +189,7 @@ export function solveModel(
     warnings: [...p.warnings, ...groundSystemWarnings(model, grounded, results)],
     mesh: p.mesh,
     groundMethod: p.groundMethod,
+    groundConnections: p.groundConnections,
   };
 }
 

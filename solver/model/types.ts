@@ -161,6 +161,32 @@ export interface FrequencyResult {
   azimuthCut?: { anglesDeg: number[]; gainDbi: number[] };
 }
 
+/** How one wire's z = 0 end joins the ground, in words, as the ground that ran modelled it. */
+export interface GroundConnectionReport {
+  wire: string;
+  /** E.g. "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)"; ideal ones say they are an idealisation. */
+  label: string;
+}
+
+/**
+ * The near-ground method names (`groundMethod`) in words, for reports (CLI text, the app's Results
+ * panel). Kept beside the names so a new method is worded where it is declared; unknown names pass through.
+ */
+export function groundMethodWords(method: string): string {
+  switch (method) {
+    case "none":
+      return "free space (no ground)";
+    case "image":
+      return "perfect image plane";
+    case "reflection":
+      return "reflection-coefficient images (Fresnel, approximate)";
+    case "sommerfeld":
+      return "rigorous half-space (Sommerfeld)";
+    default:
+      return method;
+  }
+}
+
 export interface SolveResult {
   segments: number;
   /** Number of unknowns (basis functions). */
@@ -171,4 +197,6 @@ export interface SolveResult {
   mesh: MeshView;
   /** Which near-interaction ground method ran ("none" in free space, "image" over perfect ground). */
   groundMethod: string;
+  /** One entry per wire with an end joined to the ground (model order); empty in free space. */
+  groundConnections: GroundConnectionReport[];
 }
