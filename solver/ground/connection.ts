@@ -8,7 +8,10 @@
  *   (H. B. Dwight, "Calculation of resistances to ground", AIEE Transactions 55, 1936). A d.c./low-frequency
  *   formula: at HF a rod of a few metres is a sizeable fraction of the wavelength in the soil and its
  *   impedance is complex; we label it a low-frequency estimate wherever it is shown.
- * - "contact": a bare wire end standing on the soil. Estimated as the spreading resistance of a
+ * - "contact": a bare wire end standing on the soil. Under the Sommerfeld method (the default wherever a
+ *   wire touches the soil) it is solved in the fill instead (solver/mom/soil-contact.ts: the current
+ *   enters the soil as a point source at the surface); what follows is the estimate the "reflection"
+ *   method and the d.c. label use. Estimated as the spreading resistance of a
  *   hemispherical electrode of the wire's radius at the surface of a half-space, R = ρ/(2πa) (the
  *   textbook hemisphere result; e.g. Tagg, Earth Resistances, 1964). Also a low-frequency estimate, and a
  *   rough one: the true contact depends on how the end sits in the soil. It is large (tens of kΩ for a

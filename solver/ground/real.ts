@@ -12,10 +12,11 @@
  * - auto: sommerfeld when any wire comes within 0.1 λ of the ground (at the lowest frequency of the
  *   model) or touches it, reflection otherwise.
  * - connections: a z = 0 end carries a half triangle closed by its image (an ideal connection point);
- *   nodeImpedance adds the series resistance of the connection model (connection.ts): 0 for "ideal",
- *   Dwight's rod formula, a stated resistance, or the hemisphere spreading estimate for the default
- *   bare "contact", each with σ → σ + jωε₀ε_r at HF (connectionImpedance). All are quasi-static
- *   estimates and are labelled so.
+ *   nodeImpedance adds the series impedance of the connection model (connection.ts): 0 for "ideal",
+ *   the rod estimate, a stated resistance. The default bare "contact" is solved rigorously under
+ *   "sommerfeld" (soilContact → solver/mom/soil-contact.ts: the current enters the soil as a point
+ *   source at the surface); under "reflection" it falls back to the hemisphere spreading estimate.
+ *   Estimates are labelled so (connectionLabel).
  */
 
 import { EPS0 } from "../model/constants";

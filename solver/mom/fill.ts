@@ -12,6 +12,7 @@
 import type { Mesh } from "../geometry/types";
 import type { GroundFrequency, GroundKernel } from "../ground/kernel";
 import { findRuns, PairCache } from "./pair-cache";
+import { addSoilContacts, type SoilContactNode, soilContactNodes } from "./soil-contact";
 
 export interface FillScratch {
   j: Float64Array;
@@ -24,6 +25,11 @@ export interface FillScratch {
   sign: Float64Array;
   /** Free-space pair integrals shared along straight evenly cut runs. */
   cache: PairCache;
+  /** Grounded wire ends, for the point charge of a rigorous soil contact (soil-contact.ts). */
+  contacts: SoilContactNode[];
+  /** Two scratch complex numbers for the contact terms. */
+  t1: Float64Array;
+  t2: Float64Array;
 }
 
 /** `reusePairs: false` turns the run cache off (tests compare both ways). */
@@ -47,6 +53,9 @@ export function makeFillScratch(mesh: Mesh, reusePairs = true): FillScratch {
     atEnd,
     sign,
     cache,
+    contacts: soilContactNodes(mesh),
+    t1: new Float64Array(2),
+    t2: new Float64Array(2),
   };
 }
 
@@ -102,6 +111,9 @@ export function fillMatrix(
       }
     }
   }
+  // The soil's share of a bare contact is a reflected-field term: it goes with the ground part (its
+  // phase distance from a point on z = 0 is the same to a source and to the source's image).
+  if (parts !== "free") addSoilContacts(mesh, w.contacts, ground, f, zr, zi, n, w.t1, w.t2);
 }
 
 /**

@@ -20,6 +20,7 @@ import {
   portPieces,
   surfaceResistance,
 } from "./lumped";
+import { contactSelfImpedance, soilContactNodes } from "./soil-contact";
 
 export interface MomSetup {
   mesh: Mesh;
@@ -64,7 +65,9 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
   const feedPort = portPieces(mesh, mesh.feed);
   const loadPorts = mesh.loads.map((l) => ({ pp: portPieces(mesh, l.port), load: l.load, index: l.index }));
   const groundPorts = mesh.groundPorts.map((g) => ({ pp: portPieces(mesh, g.port), wire: g.wire }));
+  const contacts = soilContactNodes(mesh);
   const tmp = new Float64Array(2);
+  const tmp2 = new Float64Array(2);
   const groundZ: ([number, number] | null)[] = groundPorts.map(() => null);
   const loadZ: [number, number][] = loadPorts.map(() => [0, 0]);
 
@@ -148,6 +151,15 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
       const [cr, ci] = portCurrent(g.pp, br, bi);
       groundLoss += 0.5 * z[0] * (cr * cr + ci * ci);
     });
+    // A rigorous soil contact's own dissipation, ½ Re(Z_self)|I|² of its hemisphere term: what the
+    // budget books without a far field. With one (below), the ground loss is the balance's remainder,
+    // which also counts the power the contact's charge exchanges with the rest of the antenna.
+    const fq = { frequencyHz, omega, k: omega / C0, eta: ETA0 };
+    for (const c of contacts) {
+      if (!ground.soilContact?.(c.wire, tmp)) continue;
+      contactSelfImpedance(c, tmp, fq, tmp2);
+      groundLoss += 0.5 * tmp2[0] * (br[c.basis] * br[c.basis] + bi[c.basis] * bi[c.basis]);
+    }
     const accepted = 1;
     const step = opts.patternStepDeg ?? 2;
     const result: FrequencyResult = {
