@@ -126,6 +126,15 @@ export interface BandAnalysis {
   centre: FrequencyResult;
 }
 
+/** One compiled wire with an end on the ground: the plan element it carries and the solver's words for the joint. */
+export interface PlanGroundConnection {
+  /** The element the wire comes from (`CompiledPlan.wireElement`): a mast, or a ground-fed run. */
+  elementId: string;
+  wire: string;
+  /** E.g. "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)"; ideal ones say they are an idealisation. */
+  label: string;
+}
+
 export interface PlanAnalysis {
   quick: boolean;
   activeRunId: string;
@@ -139,6 +148,8 @@ export interface PlanAnalysis {
   segments: number;
   /** Near-ground method the solver ran: "image" (perfect), "reflection" or "sommerfeld" (real ground). */
   groundMethod: string;
+  /** How each conductor touching the ground is joined to it, as the solver modelled it (model order). */
+  groundConnections: PlanGroundConnection[];
   /** Free wire ends (current zero, so RF voltage at its peak on a resonant wire), per band, for the app's
    *  high-voltage marks and the later safety work. */
   highVoltagePoints: { elementId: string; wire: string; point: Vec3; band: BandName }[];

@@ -277,6 +277,11 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
     unknowns: prepared.unknowns,
     segments: prepared.segments,
     groundMethod: prepared.groundMethod,
+    groundConnections: prepared.groundConnections.map((c) => ({
+      elementId: compiled.wireElement[c.wire]?.elementId ?? c.wire,
+      wire: c.wire,
+      label: c.label,
+    })),
     highVoltagePoints: results.flatMap((b) =>
       compiled.freeEnds.map((e) => ({ elementId: e.elementId, wire: e.wire, point: e.point, band: b.name })),
     ),
