@@ -80,6 +80,46 @@ describe("npm run solve", () => {
     expect(r.stdout).toContain("14.1750");
   });
 
+  it("says which near-ground method ran and how each grounded wire end joins the ground", () => {
+    // A 5 m vertical on a 2.4 m rod over average ground, and a lifted wire that touches nothing.
+    const model = {
+      wires: [
+        {
+          id: "vertical",
+          points: [
+            [0, 0, 0],
+            [0, 0, 5],
+          ],
+          radius: 0.01,
+          segments: 6,
+          groundConnection: { rod: { length: 2.4, radius: 0.008 } },
+        },
+        {
+          id: "lifted",
+          points: [
+            [3, 0, 1],
+            [3, 0, 5],
+          ],
+          radius: 0.01,
+          segments: 4,
+        },
+      ],
+      feed: { wire: "vertical", at: 0.1 },
+      ground: { kind: "real", preset: "average ground", method: "reflection" },
+      frequenciesMHz: [7.1],
+    };
+    const text = run(model);
+    expect(text.status).toBe(0);
+    expect(text.stdout).toMatch(/^ground: reflection-coefficient images.*"reflection"/m);
+    expect(text.stdout).toMatch(/^ {2}wire "vertical" to ground: 2\.4 m rod, .*low-frequency estimate/m);
+    expect(text.stdout).not.toContain('"lifted" to ground');
+    const json = JSON.parse(run(model, "--json").stdout);
+    expect(json.groundMethod).toBe("reflection");
+    expect(json.groundConnections).toHaveLength(1);
+    expect(json.groundConnections[0].wire).toBe("vertical");
+    expect(json.groundConnections[0].label).toMatch(/2\.4 m rod/);
+  });
+
   it("exits 2 with one line naming the field for a malformed model", () => {
     const bad = {
       ...dipole,
