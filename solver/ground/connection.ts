@@ -4,10 +4,15 @@
  *
  * - "ideal": 0 Ω — as if the soil were a perfect conductor at that point (a modelling idealisation).
  * - { ohms }: the stated resistance.
- * - { rod: { length, radius } }: Dwight's resistance of a driven rod, R = ρ/(2πL)·(ln(4L/a) − 1)
- *   (H. B. Dwight, "Calculation of resistances to ground", AIEE Transactions 55, 1936). A d.c./low-frequency
- *   formula: at HF a rod of a few metres is a sizeable fraction of the wavelength in the soil and its
- *   impedance is complex; we label it a low-frequency estimate wherever it is shown.
+ * - { rod: { length, radius } }: at d.c. Dwight's resistance of a driven rod, R = ρ/(2πL)·(ln(4L/a) − 1)
+ *   (H. B. Dwight, "Calculation of resistances to ground", AIEE Transactions 55, 1936). At HF a rod of a
+ *   few metres is a sizeable fraction of the wavelength in the soil (a 2.4 m rod in average ground at
+ *   7 MHz: about 0.2 of it), so the solver treats it as a lossy transmission line in the soil, open at
+ *   its tip (E. D. Sunde, Earth Conduction Effects in Transmission Systems, 1949, the rod chapter —
+ *   parameters from memory): per metre G′ + jωC′ = 2π(σ + jωε₀ε_r)/Λ and L′ = μ₀Λ/(2π), Λ = ln(4L/a) − 1,
+ *   so that 1/(G′L) is Dwight's resistance and L′(G′ + jωC′) = jωμ₀(σ + jωε) puts the soil's own
+ *   wavenumber on the line. Z_in = Z₀ coth(γL). Still an estimate (the rod's coupling to the wires'
+ *   fields above is left out), and labelled so.
  * - "contact": a bare wire end standing on the soil. Under the Sommerfeld method (the default wherever a
  *   wire touches the soil) it is solved in the fill instead (solver/mom/soil-contact.ts: the current
  *   enters the soil as a point source at the surface); what follows is the estimate the "reflection"
@@ -20,13 +25,12 @@
  *
  * ρ = 1/σ. `connectionResistance` gives these d.c. values (what the formulas state). At HF the
  * displacement current in the soil is comparable to the conduction current (σ ≈ ωε₀ε_r for average ground
- * near 7 MHz), so `connectionImpedance` — what the solver uses — replaces σ by σ + jωε₀ε_r in the same
- * quasi-static formulas: Z = R_dc · σ/(σ + jωε₀ε_r), the electrode in a lossy dielectric half-space. Still
- * quasi-static: valid while the electrode is small against the wavelength in the soil (a 2.4 m rod in
- * average ground at 7 MHz is about a quarter of it), hence "estimate" on every label.
+ * near 7 MHz), so `connectionImpedance` — what the solver uses — replaces σ by σ + jωε₀ε_r: in the
+ * hemisphere's quasi-static formula, Z = R_dc · σ/(σ + jωε₀ε_r) (an electrode small against the
+ * wavelength in the soil), and in the rod's line parameters above. Hence "estimate" on every label.
  */
 
-import { EPS0 } from "../model/constants";
+import { EPS0, MU0 } from "../model/constants";
 import { ModelError } from "../model/errors";
 import type { GroundConnection } from "../model/types";
 
@@ -107,7 +111,7 @@ export function connectionResistance(
     return {
       ohms,
       model: "dwight-rod",
-      label: `${length} m rod, ≈${formatOhms(ohms)} (Dwight 1936, low-frequency estimate)`,
+      label: `${length} m rod, ≈${formatOhms(ohms)} at d.c. (Dwight 1936), at HF a lossy line in the soil (Sunde 1949): an estimate`,
     };
   }
   throw new ModelError(path, "unknown ground connection");
@@ -128,11 +132,58 @@ export function connectionImpedance(
   const r = connectionResistance(connection, ground.conductivity, wireRadius, path);
   if (r.model === "ideal" || r.model === "lumped")
     return { ohms: [r.ohms, 0], model: r.model, label: r.label };
+  if (r.model === "dwight-rod" && typeof connection === "object" && "rod" in connection) {
+    const { length, radius } = connection.rod;
+    return { ohms: rodLineImpedance(length, radius, ground, omega), model: r.model, label: r.label };
+  }
   // R σ/(σ + jb) = R σ (σ − jb)/(σ² + b²), b = ωε₀ε_r
   const s = ground.conductivity;
   const b = omega * EPS0 * ground.permittivity;
   const d = s * s + b * b;
   return { ohms: [(r.ohms * s * s) / d, (-r.ohms * s * b) / d], model: r.model, label: r.label };
+}
+
+/**
+ * Input impedance [re, im] of a driven rod as a lossy line in the soil, open at its tip (see the header):
+ * Z₀ coth(γL) with γ = √(jωμ₀(σ + jωε₀ε_r)) and Z₀ = (Λ/2π)√(jωμ₀/(σ + jωε₀ε_r)), Λ = ln(4L/a) − 1.
+ * At ω → 0 it is 1/(G′L), Dwight's resistance.
+ */
+export function rodLineImpedance(
+  length: number,
+  radius: number,
+  ground: { conductivity: number; permittivity: number },
+  omega: number,
+): [number, number] {
+  const lam = Math.log((4 * length) / radius) - 1;
+  const yr = ground.conductivity; // σ + jωε (per unit of 2π/Λ)
+  const yi = omega * EPS0 * ground.permittivity;
+  const zi = omega * MU0; // jωμ₀
+  // γ² = jωμ₀ (σ + jωε) = −ωμ₀ωε + jωμ₀σ
+  const [gr, gi] = csqrt(-zi * yi, zi * yr);
+  // Z₀ = (Λ/2π) jωμ₀ / γ
+  const s = lam / (2 * Math.PI);
+  const d = gr * gr + gi * gi;
+  const z0r = (s * zi * gi) / d;
+  const z0i = (s * zi * gr) / d;
+  // coth(x + jy) = (sinh 2x − j sin 2y)/(cosh 2x − cos 2y), x + jy = γL
+  const x = 2 * gr * length;
+  const y = 2 * gi * length;
+  if (x < 1e-6) {
+    // γL → 0 (d.c.): Z₀ coth(γL) → Z₀/(γL) = 1/(G′L), written out to avoid 0/0.
+    const g = (2 * Math.PI * yr) / lam;
+    return [1 / (g * length), 0];
+  }
+  const den = Math.cosh(x) - Math.cos(y);
+  const cr = Math.sinh(x) / den;
+  const ci = -Math.sin(y) / den;
+  return [z0r * cr - z0i * ci, z0r * ci + z0i * cr];
+}
+
+function csqrt(re: number, im: number): [number, number] {
+  const m = Math.hypot(re, im);
+  const r = Math.sqrt((m + re) / 2);
+  const i = Math.sqrt(Math.max(0, (m - re) / 2));
+  return [r, im < 0 ? -i : i];
 }
 
 export function formatOhms(ohms: number): string {

@@ -96,7 +96,8 @@ export interface GroundKernel {
   soilContact?(wireIndex: number, out: Float64Array): boolean;
   /**
    * How the z = 0 end of wire `wireIndex` joins the ground, for reports: e.g. "ideal connection (…)",
-   * "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)". Undefined in free space.
+   * "2.4 m rod, ≈80.8 Ω at d.c. (Dwight 1936), at HF a lossy line in the soil (Sunde 1949): an
+   * estimate". Undefined in free space.
    */
   connectionLabel?(wireIndex: number): string | undefined;
 }

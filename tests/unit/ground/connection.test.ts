@@ -14,7 +14,7 @@ describe("ground connection resistance", () => {
     const r = connectionResistance({ rod: { length: 2.4, radius: 0.008 } }, 1 / 200, 0.001, "wires[0]");
     expect(r.model).toBe("dwight-rod");
     expect(r.ohms).toBeCloseTo(80.772, 2);
-    expect(r.label).toMatch(/low-frequency estimate/);
+    expect(r.label).toMatch(/Dwight 1936.*Sunde 1949.*estimate/);
   });
 
   // The commonly quoted figure for a 10 ft, 5/8 in rod in 100 Ω·m soil is about 33 Ω (electrical
@@ -98,5 +98,62 @@ describe("connection impedance at HF", () => {
     expect(
       connectionImpedance({ ohms: 25 }, { conductivity: sigma, permittivity: er }, omega, 0.002, "w").ohms,
     ).toEqual([25, 0]);
+  });
+
+  // The rod at HF as a lossy line in the soil (Sunde, Earth Conduction Effects in Transmission Systems,
+  // 1949 — line parameters from memory). Check the closed form Z₀ coth(γL) against an independent
+  // integration of the telegrapher's equations dV/dz = −Z′I, dI/dz = −Y′V (RK4, 4000 steps) from the open
+  // tip (I = 0) up to the top, with Z′ = jωμ₀Λ/2π and Y′ = 2π(σ + jωε₀ε_r)/Λ, Λ = ln(4L/a) − 1; and its
+  // d.c. limit against Dwight's formula.
+  it("treats a rod at HF as a lossy line in the soil, Dwight's value at d.c.", () => {
+    const mu0 = 1.25663706212e-6;
+    const eps0 = 8.8541878128e-12;
+    type Cx = [number, number];
+    const mul = (a: Cx, b: Cx): Cx => [a[0] * b[0] - a[1] * b[1], a[0] * b[1] + a[1] * b[0]];
+    const add = (a: Cx, b: Cx, s = 1): Cx => [a[0] + s * b[0], a[1] + s * b[1]];
+    for (const [L, a, sigma, er, f] of [
+      [2.4, 0.008, 0.005, 13, 7.1e6],
+      [2.4, 0.008, 0.005, 13, 14.2e6],
+      [1.2, 0.006, 0.001, 5, 3.6e6],
+      [3.0, 0.008, 0.03, 30, 28e6],
+    ]) {
+      const w = 2 * Math.PI * f;
+      const lam = Math.log((4 * L) / a) - 1;
+      const zp: Cx = [0, (w * mu0 * lam) / (2 * Math.PI)];
+      const yp: Cx = [(2 * Math.PI * sigma) / lam, (2 * Math.PI * w * eps0 * er) / lam];
+      const n = 4000;
+      const h = L / n;
+      let v: Cx = [1, 0];
+      let i: Cx = [0, 0];
+      // From the tip upward: z runs from the tip, d/dz V = Z′ I and d/dz I = Y′ V toward the top.
+      const deriv = (vv: Cx, ii: Cx): [Cx, Cx] => [mul(zp, ii), mul(yp, vv)];
+      for (let s = 0; s < n; s++) {
+        const [a1, b1] = deriv(v, i);
+        const [a2, b2] = deriv(add(v, a1, h / 2), add(i, b1, h / 2));
+        const [a3, b3] = deriv(add(v, a2, h / 2), add(i, b2, h / 2));
+        const [a4, b4] = deriv(add(v, a3, h), add(i, b3, h));
+        v = add(v, add(add(a1, a4), add(a2, a3), 2), h / 6);
+        i = add(i, add(add(b1, b4), add(b2, b3), 2), h / 6);
+      }
+      const d = i[0] * i[0] + i[1] * i[1];
+      const want: Cx = [(v[0] * i[0] + v[1] * i[1]) / d, (v[1] * i[0] - v[0] * i[1]) / d];
+      const got = connectionImpedance(
+        { rod: { length: L, radius: a } },
+        { conductivity: sigma, permittivity: er },
+        w,
+        0.002,
+        "w",
+      ).ohms;
+      expect(Math.hypot(got[0] - want[0], got[1] - want[1]) / Math.hypot(...want)).toBeLessThan(1e-8);
+    }
+    const dc = connectionImpedance(
+      { rod: { length: 2.4, radius: 0.008 } },
+      { conductivity: 0.005, permittivity: 13 },
+      2 * Math.PI * 50,
+      0.002,
+      "w",
+    ).ohms;
+    expect(dc[0]).toBeCloseTo(dwightRodResistance(200, 2.4, 0.008), 3);
+    expect(Math.abs(dc[1])).toBeLessThan(1e-3);
   });
 });

@@ -182,7 +182,7 @@ describe("real ground in the solver", () => {
   // Trade fact (common practice, no published source): a metal mast about λ/4 tall beside a dipole
   // carries strong currents when well grounded and far less when insulated or merely standing on the
   // soil. The mast stands near one end of the dipole (where the dipole's field has a vertical part).
-  it("orders grounded-mast models: insulated < contact < rod < ideal in mast current", () => {
+  it("orders grounded-mast models: insulated < contact < rod < ideal in mast current and loss", () => {
     const f = 7.1;
     const lam = 299.792458 / f;
     const L = 0.48 * lam;
@@ -228,12 +228,13 @@ describe("real ground in the solver", () => {
     expect(insulated.current).toBeLessThan(contact.current);
     expect(contact.current).toBeLessThan(rod.current);
     expect(rod.current).toBeLessThan(ideal.current);
-    // Loss rises from insulated through contact to the grounded masts (rod and ideal are within a few
-    // per cent of each other: the rod's own resistance dissipates what the ideal mast's larger current
-    // dissipates in the soil).
+    // Loss rises in the same order (measured: 24.1 / 25.4 / 33.3 / 34.2 %). Rod and ideal are close: a
+    // series resistance in a resonant parasite dissipates most when it matches the mast's own
+    // resistance, so a rod of ~10 Ω would lose slightly more than the ideal tie; the 2.4 m rod here is
+    // ~46 Ω at 7.1 MHz (a line in the soil, connection.ts), past that peak.
     expect(insulated.loss).toBeLessThan(contact.loss);
     expect(contact.loss).toBeLessThan(rod.loss);
-    expect(contact.loss).toBeLessThan(ideal.loss);
+    expect(rod.loss).toBeLessThan(ideal.loss);
   }, 60_000);
 
   // A ground-mounted λ/4 vertical with no radials, fed at its base against its ground connection.
