@@ -1,5 +1,6 @@
 import { memo, useMemo, useState } from "react";
-import type { BandAnalysis, PlanAnalysis } from "../../solver/plan/analysis-types";
+import { type GroundInput, groundMethodWords } from "../../solver/model/types";
+import type { BandAnalysis, PlanAnalysis, PlanGroundConnection } from "../../solver/plan/analysis-types";
 import { findElement } from "../plan/elements";
 import { freshness } from "../store/analysis-slice";
 import { useApp, useAppStore } from "../store/react";
@@ -237,6 +238,58 @@ const BandResults = memo(function BandResults({
   );
 });
 
+/** The ground as the plan states it: a preset by name, explicit σ and εr as given (they override a preset). */
+function groundText(g: GroundInput): string {
+  if (g.kind === "perfect") return "perfect ground";
+  if (g.kind === "free") return "free space";
+  const stated = [
+    g.preset,
+    g.conductivity !== undefined ? `σ ${g.conductivity} S/m` : undefined,
+    g.permittivity !== undefined ? `εr ${g.permittivity}` : undefined,
+  ].filter((x) => x !== undefined);
+  return stated.length ? stated.join(", ") : "real ground";
+}
+
+function GroundTie({ tie }: { tie: PlanGroundConnection }) {
+  const store = useAppStore();
+  // The element's name as a string (stable between drag steps, so a drag does not re-render this).
+  const name = useApp((s) => {
+    const e = findElement(s.plan, tie.elementId);
+    const n = e?.kind === "support" ? e.support.name : e?.kind === "wireRun" ? e.run.name : "";
+    return n || tie.elementId;
+  });
+  return (
+    <li>
+      <button
+        type="button"
+        className="ground-tie-element"
+        onClick={() => store.getState().select(tie.elementId)}
+        title="Select the element"
+      >
+        {name}
+      </button>
+      : {tie.label}
+    </li>
+  );
+}
+
+/** One compact line: the plan's ground, the near-ground method that ran, and how each grounded element is tied. */
+function GroundReport({ analysis }: { analysis: PlanAnalysis }) {
+  return (
+    <div className="ground-report" data-testid="ground-report" data-method={analysis.groundMethod}>
+      <span className="ground-report-title">Ground</span> {groundText(analysis.compiled.model.ground)} ·
+      near-ground interactions: {groundMethodWords(analysis.groundMethod)}
+      {analysis.groundConnections.length > 0 && (
+        <ul>
+          {analysis.groundConnections.map((c) => (
+            <GroundTie key={c.wire} tie={c} />
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
 function Warnings({ analysis }: { analysis: PlanAnalysis }) {
   const store = useAppStore();
   if (analysis.warnings.length === 0) return <p className="muted">No warnings.</p>;
@@ -312,6 +365,7 @@ export function Results() {
         // Figures for an older plan stay readable but dimmed, under the status line that says so.
         <div className={old ? "results-old" : undefined}>
           <BandResults analysis={analysis} band={band} />
+          <GroundReport analysis={analysis} />
         </div>
       )}
       {analysis && (
