@@ -16,6 +16,12 @@ test("opens on the demo plan with results, and logs no console errors", async ({
   await expect(page.getByTestId("peak-gain")).toHaveText(/dBi$/);
   await expect(page.getByTestId("vs-ideal")).toContainText("dB");
   await expect(page.getByTestId("swr-chart")).toBeVisible();
+  // The ground line: the demo's preset, the method the full pass ran, the grounded flag pole's tie.
+  const ground = page.getByTestId("ground-report");
+  await expect(ground).toHaveAttribute("data-method", "sommerfeld");
+  await expect(ground).toContainText("average ground");
+  await expect(ground).toContainText("Sommerfeld");
+  await expect(ground).toContainText("Aluminium flag pole: bare contact");
   expect(errors).toEqual([]);
 });
 
