@@ -1,3 +1,4 @@
+import { groundMethodWords } from "../model/types";
 import type { PlanAnalysis } from "./analysis-types";
 import { analyzePlan } from "./analyze";
 import type { Plan } from "./schema";
@@ -19,6 +20,8 @@ export function planReportJson(plan: Plan, analysis: PlanAnalysis = analyzePlan(
     referenceOhms: r(analysis.referenceOhms, 3),
     segments: analysis.segments,
     unknowns: analysis.unknowns,
+    groundMethod: analysis.groundMethod,
+    groundConnections: analysis.groundConnections,
     bands: analysis.bands.map((b) => ({
       name: b.name,
       lowMHz: b.lowMHz,
@@ -76,6 +79,8 @@ export function planReportText(plan: Plan, analysis: PlanAnalysis = analyzePlan(
     `Plan: ${plan.name || "(unnamed)"} — fed run "${analysis.activeRunId}", SWR reference ${fmt(analysis.referenceOhms, 0)} Ω`,
   );
   lines.push(`Model: ${analysis.segments} segments, ${analysis.unknowns} unknowns`);
+  lines.push(`Ground: ${groundMethodWords(analysis.groundMethod)}`);
+  for (const c of analysis.groundConnections) lines.push(`  ${c.elementId} to ground: ${c.label}`);
   for (const b of analysis.bands) {
     lines.push("");
     lines.push(`${b.name}  ${b.lowMHz}–${b.highMHz} MHz`);

@@ -120,6 +120,19 @@ describe("npm run solve", () => {
     expect(json.groundConnections[0].label).toMatch(/2\.4 m rod/);
   });
 
+  it("a yard plan's report names the ground method and each grounded element's tie", () => {
+    // The demo plan: average ground, an aluminium pole standing on the soil (bare contact).
+    const r = spawnSync(tsx, ["solver/cli.ts", "public/demo-plan.json"], { encoding: "utf8" });
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^Ground: rigorous half-space \(Sommerfeld\)/m);
+    expect(r.stdout).toMatch(/^ {2}pole to ground: bare contact: .*Sommerfeld/m);
+    const j = JSON.parse(
+      spawnSync(tsx, ["solver/cli.ts", "public/demo-plan.json", "--json"], { encoding: "utf8" }).stdout,
+    );
+    expect(j.groundMethod).toBe("sommerfeld");
+    expect(j.groundConnections.map((c: { elementId: string }) => c.elementId)).toEqual(["pole"]);
+  }, 60_000);
+
   it("exits 2 with one line naming the field for a malformed model", () => {
     const bad = {
       ...dipole,
