@@ -97,6 +97,16 @@ describe("bare contact on lossy soil (rigorous)", () => {
     }
   });
 
+  // Convergence (a numerical property, no outside source): the contact's terms are integrals of the
+  // same charges the fill already carries, so doubling the segments moves the answer little.
+  it("converges with segmentation", () => {
+    const z = (segs: number) =>
+      solveModel(vertical(7.1, 0.01, AVERAGE, "contact", segs), { patternStepDeg: 0 }).results[0].impedance;
+    const a = z(15);
+    const b = z(31);
+    expect(Math.hypot(a[0] - b[0], a[1] - b[1]) / Math.hypot(...b)).toBeLessThan(0.01);
+  });
+
   // Image theory: over a perfect conductor every connection is ideal (Balanis, Antenna Theory, 4th ed.,
   // §4.7). As σ grows, 1 − κ → 0 and the contact must approach the perfect-ground monopole.
   it("approaches the perfect-ground monopole as σ grows", () => {
