@@ -164,7 +164,7 @@ export interface FrequencyResult {
 /** How one wire's z = 0 end joins the ground, in words, as the ground that ran modelled it. */
 export interface GroundConnectionReport {
   wire: string;
-  /** E.g. "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)"; ideal ones say they are an idealisation. */
+  /** E.g. "2.4 m rod, ≈80.8 Ω at d.c. (Dwight 1936), at HF a lossy line in the soil (Sunde 1949): an estimate"; ideal ones say they are an idealisation. */
   label: string;
 }
 

@@ -131,7 +131,7 @@ export interface PlanGroundConnection {
   /** The element the wire comes from (`CompiledPlan.wireElement`): a mast, or a ground-fed run. */
   elementId: string;
   wire: string;
-  /** E.g. "2.4 m rod, ≈80.8 Ω (Dwight 1936, low-frequency estimate)"; ideal ones say they are an idealisation. */
+  /** E.g. "2.4 m rod, ≈80.8 Ω at d.c. (Dwight 1936), at HF a lossy line in the soil (Sunde 1949): an estimate"; ideal ones say they are an idealisation. */
   label: string;
 }
 
