@@ -1,4 +1,17 @@
-import type { Anchor, Droop, Plan, Point2, Support, WireRun } from "../../solver/plan/schema";
+import { resolveRealGround } from "../../solver/ground/presets";
+import type { GroundMethod } from "../../solver/model/types";
+import { BAND_NAMES, type ItuRegion } from "../../solver/plan/bands";
+import {
+  type Anchor,
+  type BandName,
+  type Droop,
+  type Plan,
+  type PlanGround,
+  PlanGroundSchema,
+  type Point2,
+  type Support,
+  type WireRun,
+} from "../../solver/plan/schema";
 import { allIds, findElement, mintId, supportCentre, supportHeight } from "./elements";
 import { anchorPoint, sketchRun } from "./geometry";
 
@@ -339,7 +352,9 @@ export function setField(plan: Plan, id: string, key: string, value: unknown): P
   }
 }
 
-export type DeleteResult = { plan: Plan; refused?: undefined } | { plan: Plan; refused: string };
+/** A command that may refuse: the plan (unchanged when refused) and, if so, the reason in words. */
+export type EditResult = { plan: Plan; refused?: undefined } | { plan: Plan; refused: string };
+export type DeleteResult = EditResult;
 
 /**
  * Delete an element. Wires attached to a deleted support keep their shape: their anchors become free
@@ -464,6 +479,107 @@ export function duplicateElement(plan: Plan, id: string): { plan: Plan; id: stri
 export function runLength(plan: Plan, runId: string): number | null {
   const r = plan.wireRuns.find((x) => x.id === runId);
   return r ? (sketchRun(plan, r)?.length ?? null) : null;
+}
+
+// ---------- plan-level settings: the soil, the near-ground method, the bands, the ITU region ----------
+
+/** The soil as the settings panel shows it: perfect, a named preset, or custom σ and εr. */
+export type GroundChoice =
+  | { kind: "perfect" }
+  | { kind: "preset"; preset: string; conductivity: number; permittivity: number; method: GroundMethod }
+  | { kind: "custom"; conductivity: number; permittivity: number; method: GroundMethod };
+
+/**
+ * Read the plan's ground as a choice. A preset with explicit values over it is shown as custom with the
+ * values that apply (explicit ones override the preset, as the solver reads them). A ground the solver
+ * would refuse (an unknown preset name from a hand-edited file) reads as null: the panel says so.
+ */
+export function groundChoice(ground: PlanGround): GroundChoice | null {
+  if (ground.kind === "perfect") return { kind: "perfect" };
+  let resolved: ReturnType<typeof resolveRealGround>;
+  try {
+    resolved = resolveRealGround(ground);
+  } catch {
+    return null;
+  }
+  const { conductivity, permittivity, method } = resolved;
+  const overridden = ground.conductivity !== undefined || ground.permittivity !== undefined;
+  return resolved.preset !== undefined && !overridden
+    ? { kind: "preset", preset: resolved.preset, conductivity, permittivity, method }
+    : { kind: "custom", conductivity, permittivity, method };
+}
+
+const sameGround = (a: PlanGround, b: PlanGround) => JSON.stringify(a) === JSON.stringify(b);
+
+/**
+ * Set the soil: perfect ground, a named preset (solver/ground/presets.ts), or custom σ (S/m) and εr.
+ * A real ground keeps the near-ground method the plan had. Refuses, with the reason, what the solver
+ * would refuse (σ ≤ 0, εr < 1, an unknown preset): the plan stays as it was.
+ */
+export function setGround(
+  plan: Plan,
+  soil:
+    | { kind: "perfect" }
+    | { kind: "preset"; preset: string }
+    | { kind: "custom"; conductivity: number; permittivity: number },
+): EditResult {
+  const method = plan.ground.kind === "real" ? plan.ground.method : undefined;
+  const next: PlanGround =
+    soil.kind === "perfect"
+      ? { kind: "perfect" }
+      : {
+          kind: "real",
+          ...(soil.kind === "preset"
+            ? { preset: soil.preset }
+            : { conductivity: soil.conductivity, permittivity: soil.permittivity }),
+          ...(method !== undefined ? { method } : {}),
+        };
+  // The plan schema checks the shape and signs; the solver's resolver the preset name and εr ≥ 1, with
+  // the same words the solver would use.
+  const parsed = PlanGroundSchema.safeParse(next);
+  if (!parsed.success) return { plan, refused: parsed.error.issues[0].message };
+  if (next.kind === "real") {
+    try {
+      resolveRealGround(next);
+    } catch (e) {
+      return { plan, refused: e instanceof Error ? e.message : String(e) };
+    }
+  }
+  return { plan: sameGround(plan.ground, next) ? plan : { ...plan, ground: next } };
+}
+
+/**
+ * Set the near-ground method of a real ground. "auto" is the default and is stored as no method at all,
+ * so a plan that never chose one stays as written. Over perfect ground there is no method: unchanged.
+ */
+export function setGroundMethod(plan: Plan, method: GroundMethod): Plan {
+  const g = plan.ground;
+  if (g.kind !== "real" || (g.method ?? "auto") === method) return plan;
+  const { method: _old, ...rest } = g;
+  return { ...plan, ground: method === "auto" ? rest : { ...rest, method } };
+}
+
+/**
+ * Set the bands of interest, kept in the order of the band table (low to high) without repeats.
+ * Refuses an empty list: the analysis needs at least one band.
+ */
+export function setBands(plan: Plan, bands: readonly BandName[]): EditResult {
+  const wanted = new Set(bands);
+  const next = BAND_NAMES.filter((b) => wanted.has(b));
+  if (next.length === 0) return { plan, refused: "Keep at least one band: the analysis needs one to sweep." };
+  const same = next.length === plan.bands.length && next.every((b, i) => b === plan.bands[i]);
+  return { plan: same ? plan : { ...plan, bands: next } };
+}
+
+/** Turn one band on or off (the settings panel's checkbox); refuses turning off the last one. */
+export function toggleBand(plan: Plan, band: BandName, on: boolean): EditResult {
+  const others = plan.bands.filter((b) => b !== band);
+  return setBands(plan, on ? [...others, band] : others);
+}
+
+/** Set the ITU region (1, 2 or 3), which sets the band edges the sweeps and SWR-at-edge figures use. */
+export function setItuRegion(plan: Plan, region: ItuRegion): Plan {
+  return plan.ituRegion === region ? plan : { ...plan, ituRegion: region };
 }
 
 export { supportCentre as centreOf } from "./elements";
