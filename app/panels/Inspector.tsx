@@ -5,6 +5,7 @@ import { type FieldDef, fieldsFor } from "../plan/fields";
 import { useApp, useAppStore } from "../store/react";
 import { formatLength, fromDisplay, toDisplay } from "../units";
 import { NumberField } from "./NumberField";
+import { YardSettings } from "./YardSettings";
 
 /** Edits the selected element: labelled fields in the user's unit, and its commands. */
 export function Inspector() {
@@ -22,6 +23,7 @@ export function Inspector() {
           Select something in the yard or in the list to edit it. Drag supports to move them; the diamond over
           a selected tree or pole sets its height.
         </p>
+        <YardSettings />
       </section>
     );
   }
