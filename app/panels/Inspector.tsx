@@ -134,6 +134,13 @@ export function Inspector() {
     s.select(r.id);
   };
   const length = ref.kind === "wireRun" ? runLength(plan, ref.id) : null;
+  const radials =
+    ref.kind === "support" &&
+    ref.support.type === "mast" &&
+    ref.support.base.kind === "grounded" &&
+    ref.support.base.tie.kind === "radials"
+      ? ref.support.base.tie
+      : null;
   return (
     <section className="panel inspector" data-testid="inspector" aria-label="Inspector">
       <h2>
@@ -141,6 +148,12 @@ export function Inspector() {
       </h2>
       <div className="fields">{fieldsFor(ref).map(render)}</div>
       {length !== null && <p className="readout">Conductor length as drawn: {formatLength(length, unit)}</p>}
+      {radials && (
+        <p className="readout" data-testid="radials-readout">
+          Radial field: {radials.count} × {formatLength(radials.length, unit)}, just above the soil
+          {plan.ground.kind === "perfect" ? " (over perfect ground the image plane stands in for it)" : ""}.
+        </p>
+      )}
       <div className="actions">
         {ref.kind === "wireRun" && !ref.run.feed && (
           <button type="button" onClick={() => s.applyEdit((p) => setFeed(p, ref.id, 0.5), "immediately")}>

@@ -1,4 +1,5 @@
-import type { Plan } from "../../solver/plan/schema";
+import { BAND_NAMES, bandEdges } from "../../solver/plan/bands";
+import type { GroundTie, Mast, Plan } from "../../solver/plan/schema";
 import * as cmd from "./commands";
 import type { ElementRef } from "./elements";
 
@@ -23,6 +24,26 @@ export interface FieldDef {
   get: (ref: ElementRef) => number | string | undefined;
   set: (plan: Plan, ref: ElementRef, value: number | string) => Plan;
 }
+
+/**
+ * The radial field a mast gets when the user picks "Grounded: radial field": 8 radials a quarter wave
+ * long at the lower edge of the plan's lowest band. A quarter wave is the textbook length (Brown, Lewis
+ * and Epstein, "Ground systems as a factor in antenna efficiency", Proc. IRE 25 (1937), measured fields
+ * of up to 113 radials 0.14–0.41 λ long; the broadcast standard of 120 × λ/4 grew from it — from
+ * memory); 8 is the usual amateur minimum for a radial field (common practice, no published source). The length is worked
+ * out once, when the option is chosen: changing the bands later does not resize an existing field.
+ * A fixed length was the alternative, but no single length suits both 160 m (40 m radials) and 10 m.
+ */
+export const DEFAULT_RADIAL_COUNT = 8;
+export function defaultRadials(plan: Plan): Extract<GroundTie, { kind: "radials" }> {
+  const lowest = BAND_NAMES.find((b) => plan.bands.includes(b)) ?? "20 m";
+  const lowMHz = bandEdges(lowest, plan.ituRegion).lowMHz;
+  // λ/4 in metres = c / (4 f); c = 299.792458 m·MHz (SI definition of the metre).
+  const length = Math.round((299.792458 / (4 * lowMHz)) * 100) / 100;
+  return { kind: "radials", count: DEFAULT_RADIAL_COUNT, length };
+}
+
+const baseValue = (m: Mast) => (m.base.kind === "insulated" ? "insulated" : `grounded:${m.base.tie.kind}`);
 
 const num = (v: number | string) => (typeof v === "number" ? v : Number.parseFloat(v));
 const field = (key: string) => (plan: Plan, ref: ElementRef, v: number | string) =>
@@ -149,22 +170,28 @@ export function fieldsFor(ref: ElementRef): FieldDef[] {
               { value: "grounded:contact", label: "Grounded: set in the soil" },
               { value: "grounded:ideal", label: "Grounded: ideal (idealisation)" },
               { value: "grounded:rod", label: "Grounded: driven rod 2.4 m" },
+              { value: "grounded:radials", label: "Grounded: radial field" },
               { value: "insulated", label: "Insulated base" },
             ],
-            get: () => (s.base.kind === "insulated" ? "insulated" : `grounded:${s.base.tie.kind}`),
+            get: () => baseValue(s),
             set: (p, r, v) => {
               const value = String(v);
+              // Choosing the option the mast already has keeps its tie (a radial field keeps its size).
+              if (r.kind === "support" && r.support.type === "mast" && value === baseValue(r.support))
+                return p;
               const base =
-                value === "insulated"
-                  ? { kind: "insulated" as const }
-                  : value === "grounded:rod"
-                    ? {
-                        kind: "grounded" as const,
-                        tie: { kind: "rod" as const, length: 2.4, diameter: 0.016 },
-                      }
-                    : value === "grounded:ideal"
-                      ? { kind: "grounded" as const, tie: { kind: "ideal" as const } }
-                      : { kind: "grounded" as const, tie: { kind: "contact" as const } };
+                value === "grounded:radials"
+                  ? { kind: "grounded" as const, tie: defaultRadials(p) }
+                  : value === "insulated"
+                    ? { kind: "insulated" as const }
+                    : value === "grounded:rod"
+                      ? {
+                          kind: "grounded" as const,
+                          tie: { kind: "rod" as const, length: 2.4, diameter: 0.016 },
+                        }
+                      : value === "grounded:ideal"
+                        ? { kind: "grounded" as const, tie: { kind: "ideal" as const } }
+                        : { kind: "grounded" as const, tie: { kind: "contact" as const } };
               return cmd.setField(p, r.id, "base", base);
             },
           },

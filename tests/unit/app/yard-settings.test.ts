@@ -8,6 +8,8 @@ import {
   setItuRegion,
   toggleBand,
 } from "../../../app/plan/commands";
+import { findElement } from "../../../app/plan/elements";
+import { defaultRadials, fieldsFor } from "../../../app/plan/fields";
 import { createAppStore } from "../../../app/store/store";
 import { GROUND_PRESETS } from "../../../solver/ground/presets";
 import { type Plan, parsePlan } from "../../../solver/plan/schema";
@@ -193,5 +195,46 @@ describe("formatConstant (σ and εr as shown)", () => {
     expect(formatConstant(5)).toBe("5");
     expect(formatConstant(13)).toBe("13");
     expect(formatConstant(0.1 + 0.2)).toBe("0.3");
+  });
+});
+
+describe("a mast grounded through a radial field (the inspector's Base select)", () => {
+  const base = (plan: Plan, value: string) => {
+    const ref = findElement(plan, "pole");
+    if (!ref) throw new Error("no pole in the fixture");
+    const def = fieldsFor(ref).find((f) => f.key === "base");
+    if (!def) throw new Error("no base field");
+    return def.set(plan, ref, value);
+  };
+
+  it("gives 8 radials a quarter wave long at the lowest band's lower edge", () => {
+    // λ/4 = c / 4f with c = 299.792458 m·MHz; 20 m starts at 14.000 MHz (ITU RR Art. 5): 5.353 m.
+    expect(defaultRadials(fixturePlan())).toEqual({ kind: "radials", count: 8, length: 5.35 });
+    // 160 m in region 1 starts at 1.810 MHz (ITU RR Art. 5, from memory): 41.41 m.
+    const low = setBands(fixturePlan(), ["160 m", "20 m"]).plan;
+    expect(defaultRadials(low).length).toBeCloseTo(41.41, 2);
+  });
+
+  it("sets a schema-valid radial base, and choosing it again keeps a field the user sized", () => {
+    const plan = withGround({ kind: "real", preset: "average ground" });
+    const next = base(plan, "grounded:radials");
+    const pole = next.supports.find((s) => s.id === "pole");
+    expect(pole).toMatchObject({ base: { kind: "grounded", tie: { kind: "radials", count: 8 } } });
+    valid(next);
+    const sized = {
+      ...next,
+      supports: next.supports.map((s) =>
+        s.id === "pole" && s.type === "mast"
+          ? {
+              ...s,
+              base: { kind: "grounded" as const, tie: { kind: "radials" as const, count: 16, length: 3 } },
+            }
+          : s,
+      ),
+    };
+    expect(base(sized, "grounded:radials")).toBe(sized);
+    expect(base(sized, "grounded:contact").supports.find((s) => s.id === "pole")).toMatchObject({
+      base: { tie: { kind: "contact" } },
+    });
   });
 });
