@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { solveResultJson, solveResultText } from "../../solver/cli-format";
-import { prepareInternal, solveModel } from "../../solver/index";
-import { groundMethodWords, type WireModel } from "../../solver/model/types";
+import { solveResultJson, solveResultText } from "../../../solver/cli-format";
+import { prepareInternal, solveModel } from "../../../solver/index";
+import { groundMethodWords, type WireModel } from "../../../solver/model/types";
 
 // What a result says about the ground: the near-ground method that ran and, per wire joined to the
 // ground at z = 0, how that joint was modelled. The words are the ground kernel's own
