@@ -7,6 +7,7 @@ import type {
   BandAnalysis,
   CompiledPlan,
   PlanAnalysis,
+  PlanGroundConnection,
   PlanWarning,
   PowerSplit,
   SweepPoint,
@@ -277,13 +278,42 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
     unknowns: prepared.unknowns,
     segments: prepared.segments,
     groundMethod: prepared.groundMethod,
-    groundConnections: prepared.groundConnections.map((c) => ({
-      elementId: compiled.wireElement[c.wire]?.elementId ?? c.wire,
-      wire: c.wire,
-      label: c.label,
-    })),
+    groundConnections: [
+      ...prepared.groundConnections.map((c) => ({
+        elementId: compiled.wireElement[c.wire]?.elementId ?? c.wire,
+        wire: c.wire,
+        label: c.label,
+      })),
+      ...radialFieldReports(compiled),
+    ],
     highVoltagePoints: results.flatMap((b) =>
       compiled.freeEnds.map((e) => ({ elementId: e.elementId, wire: e.wire, point: e.point, band: b.name })),
     ),
   };
+}
+
+/**
+ * A radial field touches no ground node (over real ground its wires are lifted a little, since the
+ * thin-wire model cannot bury them), so the solver has nothing to say about it; say what was modelled.
+ */
+function radialFieldReports(compiled: CompiledPlan): PlanGroundConnection[] {
+  const byElement = new Map<string, { wire: string; count: number; length: number; height: number }>();
+  for (const part of compiled.parts) {
+    if (part.kind !== "radial") continue;
+    const w = compiled.model.wires.find((x) => x.id === part.wire);
+    const f = byElement.get(part.elementId);
+    if (f) f.count++;
+    else
+      byElement.set(part.elementId, {
+        wire: part.wire,
+        count: 1,
+        length: part.toM - part.fromM,
+        height: w ? w.points[0][2] : Number.NaN,
+      });
+  }
+  return [...byElement].map(([elementId, f]) => ({
+    elementId,
+    wire: f.wire,
+    label: `radial field: ${f.count} × ${f.length.toFixed(2)} m wires ${(f.height * 100).toFixed(0)} cm above the soil, solved as wires (the model cannot bury them)`,
+  }));
 }

@@ -143,6 +143,23 @@ describe("a plan analysis reports the ground", () => {
     expect(vert[0].label).toContain("2.4 m rod");
   });
 
+  // A radial field has no ground node; the report says how it was modelled (compile.ts: 5 cm up by
+  // default, as many wires as the tie states) rather than leaving the mast out.
+  it("a mast on a radial field is reported with its radials", () => {
+    const a = analyzePlan(
+      plan((p) => {
+        const m = p.supports?.find((s) => s.id === "bare");
+        if (m?.type === "mast")
+          m.base = { kind: "grounded", tie: { kind: "radials", count: 6, length: 5.2 } };
+      }),
+      { quick: true },
+    );
+    const r = a.groundConnections.filter((c) => c.elementId === "bare");
+    expect(r).toHaveLength(1);
+    expect(r[0].label).toMatch(/radial field: 6 × 5\.20 m wires 5 cm above the soil/);
+    expect(a.compiled.wireElement[r[0].wire].kind).toBe("radial");
+  });
+
   it("perfect ground: every tie is ideal and says it is the perfect ground's", () => {
     const a = analyzePlan(
       plan((p) => {
