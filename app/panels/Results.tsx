@@ -313,7 +313,8 @@ function Warnings({ analysis }: { analysis: PlanAnalysis }) {
 }
 
 function Cautions({ analysis }: { analysis: PlanAnalysis | null }) {
-  const n = analysis?.highVoltagePoints.length ?? 0;
+  // Points are listed per band; a point is one place in the yard however many bands mark it.
+  const n = new Set(analysis?.highVoltagePoints.map((p) => `${p.wire}@${p.point.join(",")}`)).size;
   return (
     <aside className="cautions" aria-label="Safety">
       <h3>Safety</h3>

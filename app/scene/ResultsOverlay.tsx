@@ -155,12 +155,22 @@ function Lobe({ band }: { band: BandAnalysis }) {
 export function ResultsOverlay({ analysis, band, stale, showCurrents, lobeAt }: Props) {
   // Keys stable across passes and drags (a wire has at most two free ends), so labels are not remounted.
   const seen = new Map<string, number>();
+  // A radial field has a free tip per radial: mark every tip, but label the field once (eight identical
+  // labels round a mast said nothing more and hid the yard).
+  const labelledField = new Set<string>();
   const hv = analysis.highVoltagePoints
     .filter((p) => p.band === band.name)
     .map((p) => {
       const n = seen.get(p.wire) ?? 0;
       seen.set(p.wire, n + 1);
-      return { ...p, key: `${p.wire}#${n}` };
+      const radial = analysis.compiled.wireElement[p.wire]?.kind === "radial";
+      const label = !radial
+        ? "⚡ high RF voltage"
+        : labelledField.has(p.elementId)
+          ? null
+          : "⚡ high RF voltage at the radial tips";
+      if (radial) labelledField.add(p.elementId);
+      return { ...p, key: `${p.wire}#${n}`, label };
     });
   return (
     <group>
@@ -175,12 +185,14 @@ export function ResultsOverlay({ analysis, band, stale, showCurrents, lobeAt }: 
             <sphereGeometry args={[0.5, 14, 10]} />
             <meshBasicMaterial color={palette.highVoltage} transparent opacity={0.15} depthWrite={false} />
           </mesh>
-          <YardLabel
-            className="label label-danger"
-            offset="translate(-50%, 16px)"
-            priority={SAFETY}
-            text="⚡ high RF voltage"
-          />
+          {p.label && (
+            <YardLabel
+              className="label label-danger"
+              offset="translate(-50%, 16px)"
+              priority={SAFETY}
+              text={p.label}
+            />
+          )}
         </group>
       ))}
       {lobeAt && (
