@@ -13,7 +13,7 @@ describe("shared Sommerfeld tables", () => {
     const freqs = Array.from({ length: 24 }, (_, i) => 1.8e6 + i * 0.05e6);
     const first = freqs.map((f) => sharedSommerfeldTable(params(f), { rMax: 2 }));
     const again = freqs.map((f) => sharedSommerfeldTable(params(f), { rMax: 2 }));
-    again.forEach((t, i) => expect(t).toBe(first[i]));
+    for (const [i, t] of again.entries()) expect(t).toBe(first[i]);
     // A larger model needs a table reaching further: rebuilt, not the short one.
     expect(sharedSommerfeldTable(params(freqs[0]), { rMax: 10 })).not.toBe(first[0]);
   });
