@@ -32,6 +32,21 @@ export function Outline() {
   return (
     <nav className="panel outline" aria-label="Yard items" data-testid="outline">
       <h2>Yard items</h2>
+      <ul>
+        <li>
+          {/* The yard's own settings (soil, bands, region) show in the inspector when nothing is selected. */}
+          <button
+            type="button"
+            className={`outline-row depth-0 ${selectedId === null ? "selected" : ""}`}
+            aria-pressed={selectedId === null}
+            data-testid="outline-yard"
+            onClick={() => store.getState().select(null)}
+          >
+            <span className="outline-name">The yard</span>
+            <span className="outline-kind">Soil, bands, ITU region</span>
+          </button>
+        </li>
+      </ul>
       <h3>Supports</h3>
       <ul>{plan.supports.map((s) => row(s.id))}</ul>
       <h3>Wire runs</h3>

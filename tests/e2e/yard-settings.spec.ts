@@ -99,3 +99,14 @@ test("bands: one more band adds a tab; the last band cannot be unchecked", async
   await expect(page.getByRole("tab", { name: "17 m" })).toBeVisible();
   await expect(page.getByRole("tab", { name: "20 m" })).toBeVisible();
 });
+
+test("the yard row in the outline brings the settings back after something was selected", async ({
+  page,
+}) => {
+  await openDemo(page);
+  await page.getByTestId("outline-oak").click();
+  await expect(page.getByTestId("yard-settings")).toHaveCount(0);
+  await page.getByTestId("outline-yard").click();
+  await expect(page.getByTestId("yard-settings")).toBeVisible();
+  await expect(page.getByTestId("outline-yard")).toHaveAttribute("aria-pressed", "true");
+});
