@@ -168,7 +168,8 @@ export function rodLineImpedance(
   // coth(x + jy) = (sinh 2x − j sin 2y)/(cosh 2x − cos 2y), x + jy = γL
   const x = 2 * gr * length;
   const y = 2 * gi * length;
-  if (x < 1e-6) {
+  // |γL| (not its real part alone: over nearly lossless soil Re γ is tiny while the line is not short).
+  if (Math.hypot(x, y) < 1e-6) {
     // γL → 0 (d.c.): Z₀ coth(γL) → Z₀/(γL) = 1/(G′L), written out to avoid 0/0.
     const g = (2 * Math.PI * yr) / lam;
     return [1 / (g * length), 0];

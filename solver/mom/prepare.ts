@@ -20,7 +20,7 @@ import {
   portPieces,
   surfaceResistance,
 } from "./lumped";
-import { contactSelfImpedance, soilContactNodes } from "./soil-contact";
+import { contactSpreadingLoss, soilContactNodes } from "./soil-contact";
 
 export interface MomSetup {
   mesh: Mesh;
@@ -67,7 +67,6 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
   const groundPorts = mesh.groundPorts.map((g) => ({ pp: portPieces(mesh, g.port), wire: g.wire }));
   const contacts = soilContactNodes(mesh);
   const tmp = new Float64Array(2);
-  const tmp2 = new Float64Array(2);
   const groundZ: ([number, number] | null)[] = groundPorts.map(() => null);
   const loadZ: [number, number][] = loadPorts.map(() => [0, 0]);
 
@@ -151,14 +150,17 @@ export function makeMomSolver(setup: MomSetup): MomSolver {
       const [cr, ci] = portCurrent(g.pp, br, bi);
       groundLoss += 0.5 * z[0] * (cr * cr + ci * ci);
     });
-    // A rigorous soil contact's own dissipation, ½ Re(Z_self)|I|² of its hemisphere term: what the
+    // Rigorous soil contacts: their spreading dissipation (hemisphere terms, quasi-static) is what the
     // budget books without a far field. With one (below), the ground loss is the balance's remainder,
-    // which also counts the power the contact's charge exchanges with the rest of the antenna.
-    const fq = { frequencyHz, omega, k: omega / C0, eta: ETA0 };
-    for (const c of contacts) {
-      if (!ground.soilContact?.(c.wire, tmp)) continue;
-      contactSelfImpedance(c, tmp, fq, tmp2);
-      groundLoss += 0.5 * tmp2[0] * (br[c.basis] * br[c.basis] + bi[c.basis] * bi[c.basis]);
+    // which also counts the power the contacts' charges exchange with the rest of the antenna.
+    const rigorous = contacts.filter((c) => ground.soilContact?.(c.wire, tmp));
+    if (rigorous.length > 0) {
+      const fq = { frequencyHz, omega, k: omega / C0, eta: ETA0 };
+      // Each contact's charge × jω: its point divergence times the half triangle's coefficient.
+      groundLoss += contactSpreadingLoss(rigorous, tmp, fq, (c) => [
+        c.divergence * br[c.basis],
+        c.divergence * bi[c.basis],
+      ]);
     }
     const accepted = 1;
     const step = opts.patternStepDeg ?? 2;

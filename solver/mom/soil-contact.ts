@@ -109,6 +109,44 @@ export function pointSegmentIntegral(
   out[1] = im;
 }
 
+/** Distance between two contacts' charges, regularised by the larger of their radii. */
+export function contactDistance(c: SoilContactNode, e: SoilContactNode): number {
+  const dx = c.x - e.x;
+  const dy = c.y - e.y;
+  const dz = c.z - e.z;
+  const a = Math.max(c.radius, e.radius);
+  return Math.sqrt(dx * dx + dy * dy + dz * dz + a * a);
+}
+
+/**
+ * Power dissipated in the soil by the contacts' own spreading, watts: ½ Re Σ_ce I_c* Z_ce I_e over the
+ * quasi-static point-charge terms Z_ce = (η/4πk)(1 − κ)/(jR_ce) — the hemisphere impedances and the
+ * sharing between contacts at the same spot. Quasi-static on purpose: the retardation e^{−jkR} of the
+ * full term carries a radiation-like part that cancels inside each charge-neutral basis and is not
+ * dissipation. `current(c)` is contact c's charge times jω (the current into the soil, up to a sign
+ * common to all contacts); `factor` is 1 − κ.
+ */
+export function contactSpreadingLoss(
+  nodes: readonly SoilContactNode[],
+  factor: ArrayLike<number>,
+  f: GroundFrequency,
+  current: (c: SoilContactNode) => [number, number],
+): number {
+  const s0 = f.eta / (4 * Math.PI * f.k);
+  // Re[(−j s0 F)/R] = s0 Im(F)/R; the form is real-symmetric, so Re Σ I_c* (·) I_e = Σ (·) Re(I_c* I_e).
+  const w = s0 * factor[1];
+  let p = 0;
+  const I = nodes.map(current);
+  for (let c = 0; c < nodes.length; c++) {
+    for (let e = 0; e < nodes.length; e++) {
+      const R = contactDistance(nodes[c], nodes[e]); // its own radius when c = e
+      const re = I[c][0] * I[e][0] + I[c][1] * I[e][1];
+      p += (0.5 * w * re) / R;
+    }
+  }
+  return p;
+}
+
 /** The contact's own point-charge term, ohms: (jη/4π)(−1/k)(1 − κ) e^{−jka}/a, into out[0..1]. */
 export function contactSelfImpedance(
   node: SoilContactNode,
@@ -179,10 +217,9 @@ export function addSoilContacts(
         zi[mc * n + mc] += g[1];
         continue;
       }
-      const dx = nc.x - ne.x;
-      const dy = nc.y - ne.y;
-      const dz = nc.z - ne.z;
-      const R = Math.sqrt(dx * dx + dy * dy + dz * dz + ne.radius * ne.radius);
+      // The larger radius of the two: a thin wire's charge inside a fat wire's hemisphere sees the fat
+      // one's potential, and the other way round (and the pair term stays symmetric).
+      const R = contactDistance(nc, ne);
       const gr = Math.cos(f.k * R) / R;
       const gi = -Math.sin(f.k * R) / R;
       // −j s0 F d_c d_e g

@@ -3,8 +3,7 @@
  * (solver/ground/connection.ts `rodLineImpedance`). Each check names its source or says it is a
  * symmetry / convergence property of the discretisation.
  *
- * Cases marked `it.fails` reproduce bugs found in review (the report gives the fix): they pass while the
- * bug is there and start failing once it is fixed — then drop the `.fails`.
+ * Cases marked "Found in review" reproduced bugs that have since been fixed; they guard the fixes.
  */
 import { describe, expect, it } from "vitest";
 import { rodLineImpedance } from "../../../solver/ground/connection";
@@ -175,11 +174,11 @@ describe("bare contact: equivalent geometries give the same answer (symmetry pro
     expect(asymmetry(meeting(0.01), 7.1e6)).toBeLessThan(1e-6);
   });
 
-  // BUG: the contact–contact term uses the radius of the second contact only
-  // (R = √(d² + a_e²) in addSoilContacts), so two contacts of different radii at one point give
+  // Found in review: the contact–contact term used the radius of the second contact only
+  // (R = √(d² + a_e²) in addSoilContacts; now the larger of the two), so two contacts of different radii at one point gave
   // Z_ce ∝ 1/a_e ≠ Z_ec ∝ 1/a_c. Measured: asymmetry 0.82 of max|Z|; band sweeps (which keep only the
   // upper triangle) then differ from full fills by a factor ~4 in Z_in.
-  it.fails("keeps Z symmetric with contacts of different radii at one ground point", () => {
+  it("keeps Z symmetric with contacts of different radii at one ground point", () => {
     expect(asymmetry(meeting(0.001), 7.1e6)).toBeLessThan(1e-6);
   });
 });
@@ -238,13 +237,13 @@ describe("bare contact: limits and convergence", () => {
     }
   });
 
-  // BUG: without a far field the budget books ½ Re(Z_self)|I|² of the contact's own point-charge term,
-  // and Z_self carries the retardation e^{−jka}: its real part holds −η(1 − κ)/(4π) (≈ −4 Ω over
+  // Found in review: without a far field the budget booked ½ Re(Z_self)|I|² of the contact's own
+  // point-charge term (now the quasi-static spreading loss only), and Z_self carries the retardation e^{−jka}: its real part holds −η(1 − κ)/(4π) (≈ −4 Ω over
   // εr = 13), a radiation-like share that cancels against the basis's line charge (the basis is
   // charge-neutral) but is not dissipation. Over nearly lossless soil the booked ground loss is then
   // negative and the efficiency above 1 (measured −0.094 W and 1.094 at 30 MHz, 1 cm wire, σ = 1e-5).
   // Power is not created in a passive soil (Poynting's theorem).
-  it.fails("books no negative ground loss without a pattern (nearly lossless soil)", () => {
+  it("books no negative ground loss without a pattern (nearly lossless soil)", () => {
     const g: GroundInput = { kind: "real", conductivity: 1e-5, permittivity: 13, method: "sommerfeld" };
     const r = solveModel(vertical(30, 0.01, g, "contact", 16), { patternStepDeg: 0 }).results[0];
     expect(r.power.groundLoss).toBeGreaterThanOrEqual(0);
@@ -292,10 +291,10 @@ describe("driven rod as a lossy line in the soil", () => {
     }
   });
 
-  // BUG: the d.c. branch is taken when Re(γ)L is small (x < 1e-6), not |γL|; over a nearly lossless
+  // Found in review: the d.c. branch was taken when Re(γ)L is small (x < 1e-6), not |γL|; over a nearly lossless
   // soil (σ ≤ ~1e-9 S/m, which the schema accepts) γL is almost pure imaginary and not small, and the
   // code returns the d.c. resistance 4e8 Ω instead of the line's −jZ₀cot(βL) ≈ −j29.5 Ω.
-  it.fails("stays a line, not a d.c. resistance, over nearly lossless soil", () => {
+  it("stays a line, not a d.c. resistance, over nearly lossless soil", () => {
     const w = 2 * Math.PI * 7.1e6;
     const z = rodLineImpedance(2.4, 0.008, { conductivity: 1e-9, permittivity: 13 }, w);
     expect(rel(z, rodReference(2.4, 0.008, 1e-9, 13, w))).toBeLessThan(1e-6);
