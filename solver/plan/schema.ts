@@ -398,7 +398,8 @@ export const PlanGroundSchema = z.discriminatedUnion(
           .refine((v) => v >= 1, { message: "expected a relative permittivity of at least 1" })
           .optional(),
         /** Near-ground interaction method; default "auto" (rigorous when a wire is within 0.1 λ of the
-         *  soil). Quick (live) analyses always use "reflection". */
+         *  soil). Quick (live) analyses use "reflection" under "auto" while the fed antenna itself stays above
+         *  0.1 λ (solver/plan/analyze.ts). */
         method: z
           .enum(["auto", "reflection", "sommerfeld"], {
             error: 'expected "auto", "reflection" or "sommerfeld"',
