@@ -250,7 +250,7 @@ function groundText(g: GroundInput): string {
   return stated.length ? stated.join(", ") : "real ground";
 }
 
-function GroundTie({ tie }: { tie: PlanGroundConnection }) {
+function GroundTie({ tie, current }: { tie: PlanGroundConnection; current: string | null }) {
   const store = useAppStore();
   // The element's name as a string (stable between drag steps, so a drag does not re-render this).
   const name = useApp((s) => {
@@ -269,12 +269,28 @@ function GroundTie({ tie }: { tie: PlanGroundConnection }) {
         {name}
       </button>
       : {tie.label}
+      {current && <span data-testid={`ground-current-${tie.elementId}`}>; {current}</span>}
     </li>
   );
 }
 
 /** One compact line: the plan's ground, the near-ground method that ran, and how each grounded element is tied. */
-function GroundReport({ analysis }: { analysis: PlanAnalysis }) {
+/**
+ * How strongly a grounded element takes part, from the band-centre solution: its largest current
+ * against the feed current (both for the same 1 W accepted, so the ratio holds at any power). A
+ * grounded mast beside the antenna is a parasitic radiator; this says how much of one.
+ */
+function elementCurrent(analysis: PlanAnalysis, band: BandAnalysis, elementId: string): string | null {
+  if (elementId === analysis.activeRunId) return null; // the antenna itself
+  const wires = new Set(analysis.compiled.elementWires[elementId] ?? []);
+  let peak = 0;
+  for (const c of band.centre.currents) if (wires.has(c.wire)) peak = Math.max(peak, c.peakAmps);
+  const feed = Math.hypot(...band.centre.feedCurrent);
+  if (!(feed > 0) || wires.size === 0) return null;
+  return `carries up to ${((100 * peak) / feed).toFixed(0)} % of the feed current at ${band.centre.mhz.toFixed(3)} MHz`;
+}
+
+function GroundReport({ analysis, band }: { analysis: PlanAnalysis; band: BandAnalysis }) {
   return (
     <div className="ground-report" data-testid="ground-report" data-method={analysis.groundMethod}>
       <span className="ground-report-title">Ground</span> {groundText(analysis.compiled.model.ground)} ·
@@ -282,7 +298,7 @@ function GroundReport({ analysis }: { analysis: PlanAnalysis }) {
       {analysis.groundConnections.length > 0 && (
         <ul>
           {analysis.groundConnections.map((c) => (
-            <GroundTie key={c.wire} tie={c} />
+            <GroundTie key={c.wire} tie={c} current={elementCurrent(analysis, band, c.elementId)} />
           ))}
         </ul>
       )}
@@ -366,7 +382,7 @@ export function Results() {
         // Figures for an older plan stay readable but dimmed, under the status line that says so.
         <div className={old ? "results-old" : undefined}>
           <BandResults analysis={analysis} band={band} />
-          <GroundReport analysis={analysis} />
+          <GroundReport analysis={analysis} band={band} />
         </div>
       )}
       {analysis && (

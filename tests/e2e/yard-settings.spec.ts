@@ -110,3 +110,11 @@ test("the yard row in the outline brings the settings back after something was s
   await expect(page.getByTestId("yard-settings")).toBeVisible();
   await expect(page.getByTestId("outline-yard")).toHaveAttribute("aria-pressed", "true");
 });
+
+test("a grounded mast says how much current it carries against the feed", async ({ page }) => {
+  await openDemo(page);
+  // The demo's aluminium pole stands on the soil (bare contact) beside the dipole.
+  await expect(page.getByTestId("ground-current-pole")).toContainText(
+    /\d+ % of the feed current at 14\.\d{3} MHz/,
+  );
+});
