@@ -8,18 +8,36 @@ interface Props {
   label: string;
   unit?: string;
   value: number | undefined;
-  /** Decimal places shown. */
-  digits: number;
-  step: number;
+  /** Decimal places shown (default 2), unless `format` says how to show the value. */
+  digits?: number;
+  /** How to show the value, for quantities spanning decades (σ from 0.0001 to 5 S/m). */
+  format?: (value: number) => string;
+  /** Arrow-key step; without one the arrows do nothing. */
+  step?: number;
   min?: number;
   max?: number;
+  /** A further check of a typed value: the problem in words, or null. A value with a problem is never committed. */
+  check?: (value: number) => string | null;
   testId: string;
   onCommit: (value: number) => void;
 }
 
-export function NumberField({ label, unit, value, digits, step, min, max, testId, onCommit }: Props) {
+export function NumberField({
+  label,
+  unit,
+  value,
+  digits = 2,
+  format,
+  step,
+  min,
+  max,
+  check,
+  testId,
+  onCommit,
+}: Props) {
   const id = useId();
-  const shown = value === undefined ? "" : value.toFixed(digits);
+  const show = (v: number) => (format ? format(v) : v.toFixed(digits));
+  const shown = value === undefined ? "" : show(value);
   const [draft, setDraft] = useState(shown);
   const [problem, setProblem] = useState<string | null>(null);
   useEffect(() => {
@@ -32,6 +50,8 @@ export function NumberField({ label, unit, value, digits, step, min, max, testId
     if (!Number.isFinite(v)) return setProblem("enter a number");
     if (min !== undefined && v < min) return setProblem(`at least ${min}`);
     if (max !== undefined && v > max) return setProblem(`at most ${max}`);
+    const why = check?.(v) ?? null;
+    if (why) return setProblem(why);
     setProblem(null);
     if (text.trim() !== shown) onCommit(v);
   };
@@ -41,14 +61,14 @@ export function NumberField({ label, unit, value, digits, step, min, max, testId
       setDraft(shown);
       setProblem(null);
       (e.target as HTMLInputElement).blur();
-    } else if (e.key === "ArrowUp" || e.key === "ArrowDown") {
+    } else if (step !== undefined && (e.key === "ArrowUp" || e.key === "ArrowDown")) {
       e.preventDefault();
       const base = Number.parseFloat(draft);
       if (!Number.isFinite(base)) return;
       let v = base + (e.key === "ArrowUp" ? 1 : -1) * step * (e.shiftKey ? 10 : 1);
       if (min !== undefined) v = Math.max(min, v);
       if (max !== undefined) v = Math.min(max, v);
-      const text = v.toFixed(digits);
+      const text = show(v);
       setDraft(text);
       commit(text);
     }
@@ -72,7 +92,11 @@ export function NumberField({ label, unit, value, digits, step, min, max, testId
         />
         {unit && <span className="field-unit">{unit}</span>}
       </div>
-      {problem && <span className="field-problem">{problem}</span>}
+      {problem && (
+        <span className="field-problem" data-testid={`${testId}-problem`} role="alert">
+          {problem}
+        </span>
+      )}
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { type KeyboardEvent, useEffect, useId, useState } from "react";
+import { useId } from "react";
 import { GROUND_PRESETS } from "../../solver/ground/presets";
 import type { GroundMethod } from "../../solver/model/types";
 import { BAND_NAMES, type ItuRegion } from "../../solver/plan/bands";
@@ -12,6 +12,7 @@ import {
   toggleBand,
 } from "../plan/commands";
 import { useApp, useAppStore } from "../store/react";
+import { NumberField } from "./NumberField";
 
 /**
  * The plan-level settings, shown in the inspector when nothing is selected: the soil under the yard,
@@ -54,70 +55,6 @@ const METHODS: { value: GroundMethod; label: string }[] = [
 ];
 
 const bandTestId = (b: BandName) => `band-${b.replace(/\s+/g, "")}`;
-
-interface ConstantProps {
-  label: string;
-  unit?: string;
-  value: number;
-  testId: string;
-  /** The problem with a typed value, in words, or null when it can be committed. */
-  check: (v: number) => string | null;
-  onCommit: (v: number) => void;
-}
-
-/**
- * A σ or εr entry. Unlike the inspector's NumberField it checks a strict bound (σ > 0) and shows the
- * value in as many places as it has (σ runs from 0.0001 to 5). Commits on Enter or blur; a bad value
- * stays in the box with the message beside it and is never committed; Escape puts the plan's value back.
- */
-function ConstantField({ label, unit, value, testId, check, onCommit }: ConstantProps) {
-  const id = useId();
-  const shown = formatConstant(value);
-  const [draft, setDraft] = useState(shown);
-  const [problem, setProblem] = useState<string | null>(null);
-  useEffect(() => {
-    setDraft(shown);
-    setProblem(null);
-  }, [shown]);
-  const commit = () => {
-    const v = Number(draft.trim().replace(",", "."));
-    const why = draft.trim() === "" || !Number.isFinite(v) ? "enter a number" : check(v);
-    setProblem(why);
-    if (why === null && draft.trim() !== shown) onCommit(v);
-  };
-  const onKey = (e: KeyboardEvent<HTMLInputElement>) => {
-    if (e.key === "Enter") commit();
-    else if (e.key === "Escape") {
-      setDraft(shown);
-      setProblem(null);
-    }
-  };
-  return (
-    <div className={`field ${problem ? "field-bad" : ""}`}>
-      <label htmlFor={id}>{label}</label>
-      <div className="field-input">
-        <input
-          id={id}
-          type="text"
-          inputMode="decimal"
-          value={draft}
-          aria-label={unit ? `${label} (${unit})` : label}
-          aria-invalid={problem ? true : undefined}
-          data-testid={testId}
-          onChange={(e) => setDraft(e.target.value)}
-          onBlur={commit}
-          onKeyDown={onKey}
-        />
-        {unit && <span className="field-unit">{unit}</span>}
-      </div>
-      {problem && (
-        <span className="field-problem" data-testid={`${testId}-problem`} role="alert">
-          {problem}
-        </span>
-      )}
-    </div>
-  );
-}
 
 export function YardSettings() {
   const store = useAppStore();
@@ -220,10 +157,11 @@ export function YardSettings() {
       )}
       {custom && (
         <div className="fields settings-custom">
-          <ConstantField
+          <NumberField
             label="Conductivity σ"
             unit="S/m"
             value={custom.conductivity}
+            format={formatConstant}
             testId="ground-conductivity"
             check={(v) => (v > 0 ? null : "σ must be above 0 S/m")}
             onCommit={(v) =>
@@ -234,9 +172,10 @@ export function YardSettings() {
               })
             }
           />
-          <ConstantField
+          <NumberField
             label="Permittivity εr"
             value={custom.permittivity}
+            format={formatConstant}
             testId="ground-permittivity"
             check={(v) => (v >= 1 ? null : "εr must be at least 1")}
             onCommit={(v) =>
