@@ -41,6 +41,11 @@ export interface PreparedModel {
   readonly groundMethod: string;
   /** How each wire with a z = 0 end joins the ground (model order), as the ground kernel models it. */
   readonly groundConnections: GroundConnectionReport[];
+  /**
+   * The series impedance (ohms) a wire's ground tie puts in at a frequency (Hz), as modelled: a rod's
+   * line, a stated resistance, a bare contact's hemisphere term; null for an ideal tie or none.
+   */
+  groundTieOhms(wireId: string, frequencyHz: number): [number, number] | null;
   /** Frequencies of the model, MHz. */
   readonly frequenciesMHz: number[];
   /** Solve at one frequency (Hz). Options default to those given to prepareModel. */
@@ -112,6 +117,14 @@ export function prepareInternal(
     warnings,
     groundMethod: kernel.method,
     groundConnections: groundConnectionReports(model, mesh, kernel),
+    groundTieOhms: (wireId, hz) => {
+      const wi = model.wires.findIndex((w) => w.id === wireId);
+      const out = new Float64Array(2);
+      if (wi < 0 || !mesh.groundPorts.some((g) => g.wire === wi) || !kernel.tieImpedance?.(wi, hz, out)) {
+        return null;
+      }
+      return [out[0], out[1]];
+    },
     frequenciesMHz: freqs,
     solveAt: (hz, opts) => solver.solveAt(hz, { ...defaults, ...opts }),
     solveSweep: (hz, opts) => solver.solveSweep(hz, { ...defaults, ...opts }),

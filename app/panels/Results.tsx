@@ -250,7 +250,21 @@ function groundText(g: GroundInput): string {
   return stated.length ? stated.join(", ") : "real ground";
 }
 
-function GroundTie({ tie, current }: { tie: PlanGroundConnection; current: string | null }) {
+/** The tie's series impedance at the band centre, as the solver modelled it (a rod is no short at HF). */
+function tieText(band: BandAnalysis, wire: string): string | null {
+  const t = band.groundTies.find((g) => g.wire === wire);
+  return t ? `≈ ${ohms(t.ohms)} at ${band.centre.mhz.toFixed(3)} MHz` : null;
+}
+
+function GroundTie({
+  tie,
+  current,
+  series,
+}: {
+  tie: PlanGroundConnection;
+  current: string | null;
+  series: string | null;
+}) {
   const store = useAppStore();
   // The element's name as a string (stable between drag steps, so a drag does not re-render this).
   const name = useApp((s) => {
@@ -269,6 +283,7 @@ function GroundTie({ tie, current }: { tie: PlanGroundConnection; current: strin
         {name}
       </button>
       : {tie.label}
+      {series && <span data-testid={`ground-tie-ohms-${tie.elementId}`}>; {series}</span>}
       {current && <span data-testid={`ground-current-${tie.elementId}`}>; {current}</span>}
     </li>
   );
@@ -298,7 +313,12 @@ function GroundReport({ analysis, band }: { analysis: PlanAnalysis; band: BandAn
       {analysis.groundConnections.length > 0 && (
         <ul>
           {analysis.groundConnections.map((c) => (
-            <GroundTie key={c.wire} tie={c} current={elementCurrent(analysis, band, c.elementId)} />
+            <GroundTie
+              key={c.wire}
+              tie={c}
+              current={elementCurrent(analysis, band, c.elementId)}
+              series={tieText(band, c.wire)}
+            />
           ))}
         </ul>
       )}

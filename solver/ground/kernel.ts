@@ -100,4 +100,10 @@ export interface GroundKernel {
    * estimate". Undefined in free space.
    */
   connectionLabel?(wireIndex: number): string | undefined;
+  /**
+   * The series impedance (ohms, [re, im] into out) that the tie of wire `wireIndex` puts between its
+   * z = 0 end and the ground at `frequencyHz`, as modelled — for a rigorous bare contact its hemisphere
+   * term. False when there is none to state (an ideal tie, perfect ground, free space).
+   */
+  tieImpedance?(wireIndex: number, frequencyHz: number, out: Float64Array): boolean;
 }

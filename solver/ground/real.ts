@@ -309,6 +309,27 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       out[1] = -kapIm;
       return true;
     },
+    tieImpedance(wireIndex: number, frequencyHz: number, out: Float64Array) {
+      const w = 2 * Math.PI * frequencyHz;
+      const conn = setup.connections[wireIndex] ?? "contact";
+      const path = `wires[${wireIndex}].groundConnection`;
+      const a = wireRadius.get(wireIndex) ?? 0;
+      if (rigorousContact(wireIndex)) {
+        // The contact's own term: a hemisphere of the wire's radius, soil and air displacement included
+        // (solver/mom/soil-contact.ts), quasi-static.
+        const g = 2 * Math.PI * a * conductivity;
+        const b = 2 * Math.PI * a * w * EPS0 * (1 + permittivity);
+        const d = g * g + b * b;
+        out[0] = g / d;
+        out[1] = -b / d;
+        return true;
+      }
+      const z = connectionImpedance(conn, ground, w, a, path);
+      if (z.model === "ideal") return false;
+      out[0] = z.ohms[0];
+      out[1] = z.ohms[1];
+      return true;
+    },
     connectionLabel(wireIndex: number) {
       const conn = setup.connections[wireIndex] ?? "contact";
       const path = `wires[${wireIndex}].groundConnection`;

@@ -124,6 +124,8 @@ export interface BandAnalysis {
   vsIdealAtTakeoffDb: number;
   /** The solver's full result at the band centre (segment currents, cuts) for drawing and later analyses. */
   centre: FrequencyResult;
+  /** Each ground tie's series impedance at the band centre, as modelled (ideal ties are left out). */
+  groundTies: { elementId: string; wire: string; ohms: [number, number] }[];
 }
 
 /** One compiled wire with an end on the ground: the plan element it carries and the solver's words for the joint. */

@@ -264,6 +264,12 @@ export function analyzePlan(input: Plan, options: AnalyzeOptions = {}): PlanAnal
       vsIdealDipoleDb: centre.peakGainDbi - ideal.peakGainDbi,
       vsIdealAtTakeoffDb: centre.peakGainDbi - idealAtTakeoff,
       centre,
+      groundTies: prepared.groundConnections.flatMap((c) => {
+        const ohms = prepared.groundTieOhms(c.wire, centreMHz * 1e6);
+        return ohms
+          ? [{ elementId: compiled.wireElement[c.wire]?.elementId ?? c.wire, wire: c.wire, ohms }]
+          : [];
+      }),
     };
   });
 

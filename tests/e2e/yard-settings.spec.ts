@@ -114,6 +114,10 @@ test("the yard row in the outline brings the settings back after something was s
 test("a grounded mast says how much current it carries against the feed", async ({ page }) => {
   await openDemo(page);
   // The demo's aluminium pole stands on the soil (bare contact) beside the dipole.
+  // Its series term as modelled (the hemisphere of a 5 cm pole: hundreds of ohms at 14 MHz).
+  await expect(page.getByTestId("ground-tie-ohms-pole")).toContainText(
+    /≈ \d+\.\d [−+] j\d+\.\d Ω at 14\.\d{3} MHz/,
+  );
   await expect(page.getByTestId("ground-current-pole")).toContainText(
     /\d+ % of the feed current at 14\.\d{3} MHz/,
   );

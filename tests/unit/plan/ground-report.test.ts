@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { rodLineImpedance } from "../../../solver/ground/connection";
 import { groundMethodWords } from "../../../solver/model/types";
 import { analyzePlan } from "../../../solver/plan/analyze";
 import { type PlanInput, parsePlan } from "../../../solver/plan/schema";
@@ -158,6 +159,36 @@ describe("a plan analysis reports the ground", () => {
     expect(r).toHaveLength(1);
     expect(r[0].label).toMatch(/radial field: 6 × 5\.20 m wires 5 cm above the soil/);
     expect(a.compiled.wireElement[r[0].wire].kind).toBe("radial");
+  });
+
+  // The series impedance each tie puts in at the band centre, as modelled. Bare contact under
+  // Sommerfeld: its hemisphere term 1/(2πa(σ + jωε₀(1 + ε_r))) (Tagg, Earth Resistances, 1964, at d.c.;
+  // the air and soil displacement currents in parallel, Jackson §4.4 from memory). Rod: its line in the
+  // soil (checked against the telegrapher's equations in tests/unit/ground/connection.test.ts). Ideal:
+  // nothing to state.
+  it("gives each tie's series impedance at the band centre; none for an ideal tie", () => {
+    const a = analyzePlan(
+      plan((p) => {
+        p.ground = { kind: "real", preset: "average ground", method: "sommerfeld" };
+      }),
+      { quick: true },
+    );
+    const band = a.bands[0];
+    const byElement = Object.fromEntries(band.groundTies.map((t) => [t.elementId, t.ohms]));
+    expect(Object.keys(byElement).sort()).toEqual(["bare", "rodded"]);
+    const w = 2 * Math.PI * band.centreMHz * 1e6;
+    const radius = 0.05 / 2; // the bare mast's diameter above
+    const g = 2 * Math.PI * radius * 0.005;
+    const b = 2 * Math.PI * radius * w * 8.8541878128e-12 * 14;
+    const want = [g / (g * g + b * b), -b / (g * g + b * b)];
+    expect(
+      Math.hypot(byElement.bare[0] - want[0], byElement.bare[1] - want[1]) / Math.hypot(...want),
+    ).toBeLessThan(1e-6);
+    const rod = rodLineImpedance(2.4, 0.008, { conductivity: 0.005, permittivity: 13 }, w);
+    expect(byElement.rodded[0]).toBeCloseTo(rod[0], 6);
+    expect(byElement.rodded[1]).toBeCloseTo(rod[1], 6);
+    // At 14 MHz the 2.4 m rod is no short: tens of ohms, mostly inductive here.
+    expect(Math.hypot(...byElement.rodded)).toBeGreaterThan(30);
   });
 
   it("perfect ground: every tie is ideal and says it is the perfect ground's", () => {
