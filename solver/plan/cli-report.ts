@@ -59,6 +59,11 @@ export function planReportJson(plan: Plan, analysis: PlanAnalysis = analyzePlan(
         peakGainDbi: r(b.ideal.peakGainDbi, 2),
         takeoffDeg: r(b.ideal.takeoffDeg, 1),
       },
+      groundTies: b.groundTies.map((t) => ({
+        elementId: t.elementId,
+        wire: t.wire,
+        ohms: [r(t.ohms[0], 2), r(t.ohms[1], 2)],
+      })),
       sweep: b.sweep.map((p) => ({
         mhz: r(p.mhz, 4),
         impedance: [r(p.impedance[0], 2), r(p.impedance[1], 2)],
@@ -105,6 +110,11 @@ export function planReportText(plan: Plan, analysis: PlanAnalysis = analyzePlan(
     lines.push(
       `  efficiency          ${fmt(b.efficiency * 100, 1)} %  (wire ${fmt(b.power.wireLoss * 100, 1)} %, loads ${fmt(b.power.loadLoss * 100, 1)} %, ground ${fmt(b.power.groundLoss * 100, 1)} %)`,
     );
+    for (const t of b.groundTies) {
+      lines.push(
+        `  ground tie          ${t.elementId}: ${fmt(t.ohms[0], 1)} ${t.ohms[1] < 0 ? "−" : "+"} j${fmt(Math.abs(t.ohms[1]), 1)} Ω in series at ${fmt(b.centreMHz, 3)} MHz`,
+      );
+    }
     lines.push(`  sweep:   MHz      R (Ω)     X (Ω)    SWR`);
     for (const p of b.sweep) {
       lines.push(

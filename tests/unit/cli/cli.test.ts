@@ -131,6 +131,9 @@ describe("npm run solve", () => {
     );
     expect(j.groundMethod).toBe("sommerfeld");
     expect(j.groundConnections.map((c: { elementId: string }) => c.elementId)).toEqual(["pole"]);
+    expect(r.stdout).toMatch(/^ {2}ground tie {10}pole: [\d.]+ [−+] j[\d.]+ Ω in series at 14\.\d{3} MHz/m);
+    expect(j.bands[0].groundTies[0].elementId).toBe("pole");
+    expect(j.bands[0].groundTies[0].ohms).toHaveLength(2);
   }, 60_000);
 
   it("exits 2 with one line naming the field for a malformed model", () => {
