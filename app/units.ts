@@ -27,6 +27,12 @@ export function gridStepMetres(unit: LengthUnit): { minor: number; major: number
   return unit === "ft" ? { minor: 5 * METRES_PER_FOOT, major: 25 * METRES_PER_FOOT } : { minor: 1, major: 5 };
 }
 
+/** An SWR figure: two decimals where they mean something, fewer once the match is hopeless anyway. */
+export function formatSwr(swr: number): string {
+  if (!Number.isFinite(swr)) return "∞";
+  return swr < 10 ? swr.toFixed(2) : swr < 100 ? swr.toFixed(1) : swr.toFixed(0);
+}
+
 export function formatMHz(mhz: number): string {
   return `${mhz.toFixed(3)} MHz`;
 }

@@ -4,7 +4,7 @@ import type { BandAnalysis, PlanAnalysis, PlanGroundConnection } from "../../sol
 import { findElement } from "../plan/elements";
 import { freshness } from "../store/analysis-slice";
 import { useApp, useAppStore } from "../store/react";
-import { formatDb, formatLength, formatMHz } from "../units";
+import { formatDb, formatLength, formatMHz, formatSwr } from "../units";
 import { PolarPlot } from "./charts/PolarPlot";
 import { SwrChart } from "./charts/SwrChart";
 
@@ -182,13 +182,13 @@ const BandResults = memo(function BandResults({
         />
         <Figure
           label="Best SWR"
-          value={`${band.swrMin.toFixed(2)} : 1`}
+          value={`${formatSwr(band.swrMin)} : 1`}
           testId="swr-min"
           note={`at ${formatMHz(band.swrMinMHz)}`}
         />
         <Figure
           label="SWR at band edges"
-          value={`${band.swrAtEdges[0].toFixed(2)} / ${band.swrAtEdges[1].toFixed(2)}`}
+          value={`${formatSwr(band.swrAtEdges[0])} / ${formatSwr(band.swrAtEdges[1])}`}
           note={`${band.lowMHz.toFixed(3)} / ${band.highMHz.toFixed(3)} MHz`}
         />
         <Figure

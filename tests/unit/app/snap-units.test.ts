@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import {
   formatStep,
+  formatSwr,
   METRES_PER_FOOT,
   SNAP_STEPS,
   snapChoices,
@@ -30,5 +31,14 @@ describe("snap menu in the user's unit", () => {
     expect(snapStepAfterUnitSwitch(SNAP_STEPS.ft[2], "ft", "m")).toBe(1);
     expect(snapStepAfterUnitSwitch(null, "m", "ft")).toBeNull();
     expect(snapStepAfterUnitSwitch(0.25, "m", "ft")).toBe(0.25);
+  });
+});
+
+describe("SWR figures", () => {
+  it("keep two decimals near a match and drop them once the match is hopeless", () => {
+    expect(formatSwr(1.349)).toBe("1.35");
+    expect(formatSwr(12.34)).toBe("12.3");
+    expect(formatSwr(1333.28)).toBe("1333");
+    expect(formatSwr(Number.POSITIVE_INFINITY)).toBe("∞");
   });
 });
