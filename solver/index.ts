@@ -99,6 +99,9 @@ export function prepareInternal(
     connections: model.wires.map((w) => w.groundConnection),
   };
   const { kernel, farField } = selectGround(model.ground, setup, hooks.realGround ?? realGroundKernel);
+  if (kernel.methodNote) {
+    warnings.push({ code: "ground-method-fallback", message: kernel.methodNote, path: "ground.method" });
+  }
   const solver = makeMomSolver({
     mesh,
     ground: kernel,

@@ -64,6 +64,8 @@ export interface GroundSetup {
 export interface GroundKernel {
   /** Name shown in results as `groundMethod`: "none", "image", "reflection", "sommerfeld", … */
   readonly method: string;
+  /** Why "auto" chose a method other than the one it would by geometry alone, for a warning. */
+  readonly methodNote?: string;
   /** True when z = 0 wire ends connect to the ground (half-triangle nodes). */
   readonly connectsAtZ0: boolean;
   /** True when pairTerms(p, q) equals pairTerms(q, p) with u ↔ v (the fill then asks only p ≤ q). */

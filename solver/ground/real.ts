@@ -117,8 +117,20 @@ function maxImageDistance(setup: GroundSetup): number {
   return Math.hypot(x1 - x0, y1 - y0, 2 * z1);
 }
 
+/**
+ * Why "auto" ran reflection where the geometry alone called for Sommerfeld (a wire on or near the soil,
+ * but a ground too good a conductor for the tables), in words; undefined otherwise.
+ */
+export function autoMethodNote(setup: RealGroundSetup, ground: ResolvedRealGround): string | undefined {
+  if (ground.method !== "auto" || chooseMethod("auto", setup, ground) !== "reflection") return undefined;
+  if (chooseMethod("auto", setup) !== "sommerfeld" || !setup.lowestFrequencyHz) return undefined;
+  const mag = complexPermittivityMagnitude(ground, setup.lowestFrequencyHz);
+  return `wires come within ${AUTO_HEIGHT_WAVELENGTHS} λ of the soil, but this ground's |ε_c| = ${mag.toPrecision(3)} at ${(setup.lowestFrequencyHz / 1e6).toPrecision(4)} MHz is beyond the rigorous method's tables (${SOMMERFELD_MAX_EPS}): the reflection method ran instead, accurate for so good a conductor (errors of order |ε_c|^−½), and bare contacts are the hemisphere estimate`;
+}
+
 export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGround): GroundKernel {
   const method = chooseMethod(ground.method, setup, ground);
+  const methodNote = autoMethodNote(setup, ground);
   const P = setup.segments;
   const M = setup.mirrored;
   const { permittivity, conductivity } = ground;
@@ -257,6 +269,7 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
 
   return {
     method,
+    ...(methodNote ? { methodNote } : {}),
     connectsAtZ0: true,
     symmetric: true,
     hasPairTerms: true,

@@ -61,4 +61,37 @@ describe("real-ground method choice", () => {
     expect(err).toBeInstanceOf(ModelError);
     expect((err as ModelError).path).toBe("ground.method");
   });
+
+  // P.527 sea water (σ 5 S/m, εr 70): |ε_c| ≈ 2.5e4 at 3.6 MHz, beyond the tables; 6.3e3 at 14.2 MHz,
+  // within them. A ground-mounted vertical: "auto" must say when it falls back, and only then.
+  it("says so when auto falls back to reflection for too good a conductor", () => {
+    const vertical = (mhz: number) =>
+      solveModel(
+        {
+          wires: [
+            {
+              id: "v",
+              points: [
+                [0, 0, 0],
+                [0, 0, 75 / mhz],
+              ],
+              radius: 0.0125,
+              segments: 11,
+            },
+          ],
+          feed: { wire: "v", at: 0 },
+          ground: { kind: "real", preset: "sea water" },
+          frequenciesMHz: [mhz],
+        },
+        { patternStepDeg: 0 },
+      );
+    const low = vertical(3.6);
+    expect(low.groundMethod).toBe("reflection");
+    const w = low.warnings.find((x) => x.code === "ground-method-fallback");
+    expect(w?.path).toBe("ground.method");
+    expect(w?.message).toMatch(/reflection method ran/);
+    const high = vertical(14.2);
+    expect(high.groundMethod).toBe("sommerfeld");
+    expect(high.warnings.some((x) => x.code === "ground-method-fallback")).toBe(false);
+  });
 });
