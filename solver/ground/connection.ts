@@ -49,6 +49,23 @@ export function dwightRodResistance(resistivity: number, length: number, radius:
   return (resistivity / (2 * Math.PI * length)) * (Math.log((4 * length) / radius) - 1);
 }
 
+/**
+ * Quasi-static impedance [re, im] of a hemisphere of radius a on a half-space of conductivity σ, with the
+ * displacement current of relative permittivity εEff in parallel: 1/(2πa(σ + jωε₀εEff)). εEff = ε_r is the
+ * soil alone (the lumped estimate); 1 + ε_r adds the air side (the rigorous contact's own term).
+ */
+export function hemisphereImpedance(
+  radius: number,
+  conductivity: number,
+  epsEff: number,
+  omega: number,
+): [number, number] {
+  const g = 2 * Math.PI * radius * conductivity;
+  const b = 2 * Math.PI * radius * omega * EPS0 * epsEff;
+  const d = g * g + b * b;
+  return [g / d, -b / d];
+}
+
 /** Spreading resistance of a hemisphere of radius a at the surface of a half-space of resistivity ρ: ρ/(2πa). */
 export function hemisphereResistance(resistivity: number, radius: number): number {
   return resistivity / (2 * Math.PI * radius);
@@ -136,11 +153,9 @@ export function connectionImpedance(
     const { length, radius } = connection.rod;
     return { ohms: rodLineImpedance(length, radius, ground, omega), model: r.model, label: r.label };
   }
-  // R σ/(σ + jb) = R σ (σ − jb)/(σ² + b²), b = ωε₀ε_r
-  const s = ground.conductivity;
-  const b = omega * EPS0 * ground.permittivity;
-  const d = s * s + b * b;
-  return { ohms: [(r.ohms * s * s) / d, (-r.ohms * s * b) / d], model: r.model, label: r.label };
+  // The bare contact: ρ/(2πa) with σ → σ + jωε₀ε_r.
+  const ohms = hemisphereImpedance(wireRadius, ground.conductivity, ground.permittivity, omega);
+  return { ohms, model: r.model, label: r.label };
 }
 
 /**

@@ -25,7 +25,7 @@ import type { GroundMethod } from "../model/types";
 import { findRuns, PairCache } from "../mom/pair-cache";
 import { pairIntegrals } from "../mom/pair-integrals";
 import { gaussRule, type Rule } from "../mom/quadrature";
-import { connectionImpedance, connectionResistance, formatOhms } from "./connection";
+import { connectionImpedance, connectionResistance, formatOhms, hemisphereImpedance } from "./connection";
 import type { GroundFrequency, GroundKernel, GroundSetup } from "./kernel";
 import type { ResolvedRealGround } from "./presets";
 import { type ReflectionWeights, reflectionPairTerms } from "./reflection";
@@ -327,17 +327,11 @@ export function realGroundKernel(setup: RealGroundSetup, ground: ResolvedRealGro
       const conn = setup.connections[wireIndex] ?? "contact";
       const path = `wires[${wireIndex}].groundConnection`;
       const a = wireRadius.get(wireIndex) ?? 0;
-      if (rigorousContact(wireIndex)) {
-        // The contact's own term: a hemisphere of the wire's radius, soil and air displacement included
-        // (solver/mom/soil-contact.ts), quasi-static.
-        const g = 2 * Math.PI * a * conductivity;
-        const b = 2 * Math.PI * a * w * EPS0 * (1 + permittivity);
-        const d = g * g + b * b;
-        out[0] = g / d;
-        out[1] = -b / d;
-        return true;
-      }
-      const z = connectionImpedance(conn, ground, w, a, path);
+      // A rigorous contact's own term (solver/mom/soil-contact.ts), quasi-static: soil and air
+      // displacement in parallel; otherwise the lumped model's impedance.
+      const z = rigorousContact(wireIndex)
+        ? { model: "contact-hemisphere", ohms: hemisphereImpedance(a, conductivity, 1 + permittivity, w) }
+        : connectionImpedance(conn, ground, w, a, path);
       if (z.model === "ideal") return false;
       out[0] = z.ohms[0];
       out[1] = z.ohms[1];

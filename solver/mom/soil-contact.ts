@@ -109,7 +109,11 @@ export function pointSegmentIntegral(
   out[1] = im;
 }
 
-/** Distance between two contacts' charges, regularised by the larger of their radii. */
+/**
+ * Distance between two contacts' charges, regularised by the larger of their radii: a thin wire's charge
+ * inside a fat wire's hemisphere sees the fat one's potential, and the other way round (so the pair term
+ * stays symmetric). For a contact with itself, its radius.
+ */
 export function contactDistance(c: SoilContactNode, e: SoilContactNode): number {
   const dx = c.x - e.x;
   const dy = c.y - e.y;
@@ -147,6 +151,29 @@ export function contactSpreadingLoss(
   return p;
 }
 
+/**
+ * The point-charge term between contacts c and e, ohms: (jη/4π)(−1/k)(1 − κ) d_c d_e e^{−jkR}/R with R
+ * from contactDistance — for c = e the contact's own term, R = a (its hemisphere). Into out[0..1].
+ */
+export function contactPairImpedance(
+  c: SoilContactNode,
+  e: SoilContactNode,
+  factor: ArrayLike<number>,
+  f: GroundFrequency,
+  out: Float64Array,
+): void {
+  const R = contactDistance(c, e);
+  const d = c.divergence * e.divergence;
+  const gr = Math.cos(f.k * R) / R;
+  const gi = -Math.sin(f.k * R) / R;
+  const s0 = (d * f.eta) / (4 * Math.PI * f.k);
+  // −j s0 (F)(g) with F·g = (fr gr − fi gi) + j(fr gi + fi gr)
+  const pr = factor[0] * gr - factor[1] * gi;
+  const pi = factor[0] * gi + factor[1] * gr;
+  out[0] = s0 * pi;
+  out[1] = -s0 * pr;
+}
+
 /** The contact's own point-charge term, ohms: (jη/4π)(−1/k)(1 − κ) e^{−jka}/a, into out[0..1]. */
 export function contactSelfImpedance(
   node: SoilContactNode,
@@ -154,15 +181,7 @@ export function contactSelfImpedance(
   f: GroundFrequency,
   out: Float64Array,
 ): void {
-  const ka = f.k * node.radius;
-  const gr = Math.cos(ka) / node.radius;
-  const gi = -Math.sin(ka) / node.radius;
-  const s0 = f.eta / (4 * Math.PI * f.k);
-  // −j s0 (F)(g) with F·g = (fr gr − fi gi) + j(fr gi + fi gr)
-  const pr = factor[0] * gr - factor[1] * gi;
-  const pi = factor[0] * gi + factor[1] * gr;
-  out[0] = s0 * pi;
-  out[1] = -s0 * pr;
+  contactPairImpedance(node, node, factor, f, out);
 }
 
 /**
@@ -180,13 +199,14 @@ export function addSoilContacts(
   factor: Float64Array,
   g: Float64Array,
 ): void {
-  if (!ground.soilContact || nodes.length === 0) return;
+  const soilContact = ground.soilContact;
+  if (!soilContact || nodes.length === 0) return;
+  // Every contact of one ground takes the same factor 1 − κ: fetch it once, keep the contacts it covers.
+  const active = nodes.filter((nc) => soilContact(nc.wire, factor));
   const S = mesh.segs;
   const sps = mesh.segPieceStart;
   const s0 = f.eta / (4 * Math.PI * f.k);
-  for (let c = 0; c < nodes.length; c++) {
-    const nc = nodes[c];
-    if (!ground.soilContact(nc.wire, factor)) continue;
+  for (const nc of active) {
     // pre = (jη/4π)(−1/k)(1 − κ)·d_c = −j s0 F d_c
     const pr = s0 * factor[1] * nc.divergence;
     const pi = -s0 * factor[0] * nc.divergence;
@@ -208,26 +228,11 @@ export function addSoilContacts(
         zi[mb * n + mc] += div * vi0;
       }
     }
-    for (let e = 0; e < nodes.length; e++) {
-      const ne = nodes[e];
-      if (!ground.soilContact(ne.wire, factor)) continue;
-      if (e === c) {
-        contactSelfImpedance(nc, factor, f, g);
-        zr[mc * n + mc] += g[0];
-        zi[mc * n + mc] += g[1];
-        continue;
-      }
-      // The larger radius of the two: a thin wire's charge inside a fat wire's hemisphere sees the fat
-      // one's potential, and the other way round (and the pair term stays symmetric).
-      const R = contactDistance(nc, ne);
-      const gr = Math.cos(f.k * R) / R;
-      const gi = -Math.sin(f.k * R) / R;
-      // −j s0 F d_c d_e g
-      const fr = factor[0] * gr - factor[1] * gi;
-      const fi = factor[0] * gi + factor[1] * gr;
-      const d = nc.divergence * ne.divergence;
-      zr[mc * n + ne.basis] += d * s0 * fi;
-      zi[mc * n + ne.basis] -= d * s0 * fr;
+    // Point against point, itself included (its hemisphere); each ordered pair once.
+    for (const ne of active) {
+      contactPairImpedance(nc, ne, factor, f, g);
+      zr[mc * n + ne.basis] += g[0];
+      zi[mc * n + ne.basis] += g[1];
     }
   }
 }
